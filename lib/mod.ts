@@ -13,3 +13,4 @@ export * from "./units/mod.ts";
 export * from "./physics/mod.ts";
 export * from "./devices/mod.ts";
 export * from "./analysis/mod.ts";
+export * from "./output_stage/mod.ts";
