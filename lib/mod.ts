@@ -14,3 +14,5 @@ export * from "./physics/mod.ts";
 export * from "./devices/mod.ts";
 export * from "./analysis/mod.ts";
 export * from "./output_stage/mod.ts";
+export * from "./cascade/mod.ts";
+export * from "./voltage_stage/mod.ts";

@@ -40,3 +40,28 @@ export interface TwoPort {
   /** Values at `frequency` (Hz); absent when the stage is flat over frequency. */
   at?: (frequency: number) => TwoPortAt;
 }
+
+/**
+ * A stage's two-port values at `frequency`: its own `at()` when it has one, otherwise the
+ * mid-band resistances and gain as complex numbers (a stage that is flat over frequency).
+ *
+ * @param stage The stage's two-port view.
+ * @param frequency f in Hz.
+ * @returns Input impedance, open-circuit gain and output impedance at `frequency`.
+ *
+ * @example A flat stage gives its mid-band values
+ * ```ts
+ * import { twoPortAt } from "./two_port.ts";
+ * import { deepEqual } from "node:assert/strict";
+ * const buffer = { name: "buffer", inputResistance: 1e5, openCircuitGain: 0.97, outputResistance: 0.3 };
+ * deepEqual(twoPortAt(buffer, 1e3).openCircuitGain, { re: 0.97, im: 0 });
+ * ```
+ */
+export function twoPortAt(stage: TwoPort, frequency: number): TwoPortAt {
+  if (stage.at) return stage.at(frequency);
+  return {
+    inputImpedance: { re: stage.inputResistance, im: 0 },
+    openCircuitGain: { re: stage.openCircuitGain, im: 0 },
+    outputImpedance: { re: stage.outputResistance, im: 0 },
+  };
+}
