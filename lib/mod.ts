@@ -16,3 +16,4 @@ export * from "./analysis/mod.ts";
 export * from "./output_stage/mod.ts";
 export * from "./cascade/mod.ts";
 export * from "./voltage_stage/mod.ts";
+export * from "./input_pair/mod.ts";
