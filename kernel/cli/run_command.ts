@@ -1,0 +1,67 @@
+/**
+ * `longtail run NOTEBOOK`: run every cell and print headings, values, printed text,
+ * errors and the design-check table. Writes nothing.
+ *
+ * @module
+ */
+import { parseArgs } from "node:util";
+import { runNotebook } from "../session/run_notebook.ts";
+import { absolutePath } from "../_paths.ts";
+import { parseSettings, readNotebookFile, relativeToCwd, timeoutMs, UsageError } from "./_common.ts";
+import { printRun } from "./_report.ts";
+import type { CliIo } from "./_terminal.ts";
+
+/** Help text of `run`. */
+export const RUN_HELP = `Usage: longtail run NOTEBOOK [options]
+
+Runs every cell of a notebook in the sandbox and prints its headings, each cell's
+shown value and printed text, errors with their notebook lines, and the design checks.
+Nothing is written.
+
+Options:
+  --set NAME=VALUE    use another value for an adjustable value (repeatable);
+                      VALUE may be 0.002, 2e-3, 2m, 4k7, 2mA
+  --timeout SECONDS   time limit per cell (default 30)
+  --allow-read PATH   let the cells read PATH too (repeatable)
+  -h, --help          show this help
+
+Exit status: 0 every cell ran and every check passed, 1 otherwise, 2 bad usage or
+unreadable notebook.
+`;
+
+/**
+ * Runs the `run` subcommand.
+ *
+ * @param args Arguments after `run`.
+ * @param io Where to print.
+ * @returns The exit status.
+ */
+export async function runCommand(args: string[], io: CliIo): Promise<number> {
+  const { values, positionals } = parseArgs({
+    args,
+    allowPositionals: true,
+    options: {
+      set: { type: "string", multiple: true },
+      timeout: { type: "string" },
+      "allow-read": { type: "string", multiple: true },
+      help: { type: "boolean", short: "h" },
+    },
+  });
+  if (values.help) {
+    io.out(RUN_HELP);
+    return 0;
+  }
+  if (positionals.length !== 1) throw new UsageError("Expected one notebook file, e.g. longtail run design.md");
+  const path = absolutePath(positionals[0]);
+  const { text } = await readNotebookFile(path);
+  const settings = parseSettings(values.set ?? [], text, path);
+  const run = await runNotebook(path, text, {
+    values: settings,
+    cellTimeoutMs: timeoutMs(values.timeout),
+    allowRead: (values["allow-read"] ?? []).map((p) => absolutePath(p)),
+  });
+  printRun(io, run, relativeToCwd(path));
+  const ok = run.states.every((state) => state.status === "done") &&
+    run.states.every((state) => (state.outcome?.checks ?? []).every((check) => check.pass));
+  return ok ? 0 : 1;
+}

@@ -1,0 +1,187 @@
+/**
+ * Compiling a cell to a module the sandbox runs.
+ *
+ * The cell's code becomes the body of an async function (so top-level `await` works)
+ * inside a module whose first line holds the cell's imports; values from other cells come
+ * in as the function's argument, the cell's top-level names go out in its result, and the
+ * last expression statement is captured as the shown value:
+ *
+ *     line 1   import { formatSi } from "longtail/lib"; export default async function (…) {
+ *              const { tail } = __longtail_inputs; let __longtail_value;
+ *     line 2…  the cell's code, line for line (imports blanked out)
+ *     last     ;return { value: __longtail_value, names: { gm, re } }; }
+ *
+ * Keeping the code line for line means an error's line in the module is the cell's line
+ * plus one. Relative import specifiers are made absolute against the notebook's URL,
+ * because relative imports inside a `data:` module do not work.
+ *
+ * @module
+ */
+import type { CallDeclaration, CellAnalysis, CellImport } from "../analysis/analyse_cell.ts";
+
+/** Names that compiled code uses for its own plumbing; cells should not use them. */
+export const INPUTS_NAME = "__longtail_inputs";
+/** The parameter that stands in for `import.meta` in compiled code. */
+export const META_NAME = "__longtail_meta";
+/** The variable that receives the shown value. */
+export const VALUE_NAME = "__longtail_value";
+
+/** Options for {@linkcode compileCell}. */
+export interface CompileOptions {
+  /** URL of the notebook file; relative imports resolve against it. */
+  notebookUrl: string;
+  /** Names the cell receives from other cells. */
+  inputs: readonly string[];
+  /**
+   * Top-level `const x = f(…)` calls whose `f` is the adjustable-value helper: the
+   * compiled call learns the name it is bound to (`f.named("x")(…)`).
+   * @default {[]}
+   */
+  adjustables?: readonly CallDeclaration[];
+}
+
+/** A compiled cell. */
+export interface CompiledCell {
+  /** The module's source. */
+  source: string;
+  /** Names the module returns (the cell's top-level values). */
+  names: string[];
+  /** Lines of the module before the cell's first line. */
+  lineOffset: number;
+}
+
+interface Edit {
+  start: number;
+  end: number;
+  text: string;
+}
+
+/**
+ * Compiles one cell to module source for the sandbox.
+ *
+ * @param code The cell's code.
+ * @param analysis Its analysis (must have no problems).
+ * @param options Notebook URL, inputs, adjustable calls.
+ * @returns The module source and the names it returns.
+ *
+ * @example
+ * ```ts
+ * import { analyseCell } from "../analysis/analyse_cell.ts";
+ * import { compileCell } from "./compile_cell.ts";
+ * import { equal, deepEqual } from "node:assert/strict";
+ * const code = "import { helper } from './helpers.ts';\nconst gain = helper(tail);\ngain * 2\n";
+ * const compiled = compileCell(code, analyseCell(code), {
+ *   notebookUrl: "file:///home/amp/design.md",
+ *   inputs: ["tail"],
+ * });
+ * deepEqual(compiled.names, ["helper", "gain"]);
+ * equal(compiled.source.split("\n")[0].startsWith('import { helper } from "file:///home/amp/helpers.ts";'), true);
+ * equal(compiled.source.split("\n")[3], ";__longtail_value = (gain * 2)");
+ * ```
+ */
+export function compileCell(
+  code: string,
+  analysis: CellAnalysis,
+  options: CompileOptions,
+): CompiledCell {
+  const edits: Edit[] = [];
+  const hoisted: string[] = [];
+  for (const declaration of analysis.imports) {
+    const statement = importStatement(declaration, options.notebookUrl);
+    if (statement) hoisted.push(statement);
+    edits.push({ start: declaration.start, end: declaration.end, text: blank(code, declaration) });
+  }
+  for (const dynamic of analysis.dynamicImports) {
+    const url = absoluteSpecifier(dynamic.source, options.notebookUrl);
+    if (url !== dynamic.source) edits.push({ ...dynamic, text: JSON.stringify(url) });
+  }
+  for (const meta of analysis.importMeta) edits.push({ ...meta, text: META_NAME });
+  for (const call of options.adjustables ?? []) {
+    const callee = code.slice(call.calleeSpan.start, call.calleeSpan.end);
+    edits.push({ ...call.calleeSpan, text: `${callee}.named(${JSON.stringify(call.name)})` });
+  }
+  if (analysis.lastExpression) {
+    const { start, end } = analysis.lastExpression;
+    edits.push({ start, end: start, text: `;${VALUE_NAME} = (` });
+    edits.push({ start: end, end, text: ")" });
+  }
+  const body = applyEdits(code, edits);
+  const names = valueNames(analysis);
+  const inputs = options.inputs.length > 0
+    ? `const { ${options.inputs.join(", ")} } = ${INPUTS_NAME}; `
+    : "";
+  const head = hoisted.join(" ") +
+    `export default async function (${INPUTS_NAME}, ${META_NAME}) { ${inputs}let ${VALUE_NAME};`;
+  const tail = `\n;return { value: ${VALUE_NAME}, names: { ${names.join(", ")} } };\n}\n`;
+  return { source: `${head}\n${body}${tail}`, names, lineOffset: 1 };
+}
+
+/** The cell's top-level names that exist at run time, without repeats. */
+export function valueNames(analysis: CellAnalysis): string[] {
+  const names = new Set<string>();
+  for (const definition of analysis.defines) if (!definition.typeOnly) names.add(definition.name);
+  return [...names];
+}
+
+/**
+ * Makes a relative or absolute-path specifier a `file:` URL against the notebook's URL;
+ * bare names (`longtail/lib`), `npm:`, `jsr:` and URLs stay as they are.
+ *
+ * @param specifier As written in the cell.
+ * @param notebookUrl The notebook's URL.
+ * @returns The specifier to use in compiled code.
+ *
+ * @example
+ * ```ts
+ * import { absoluteSpecifier } from "./compile_cell.ts";
+ * import { equal } from "node:assert/strict";
+ * equal(absoluteSpecifier("../lib/x.ts", "file:///a/b/n.md"), "file:///a/lib/x.ts");
+ * equal(absoluteSpecifier("longtail/lib", "file:///a/b/n.md"), "longtail/lib");
+ * ```
+ */
+export function absoluteSpecifier(specifier: string, notebookUrl: string): string {
+  if (/^\.{1,2}\//.test(specifier) || specifier.startsWith("/")) {
+    return new URL(specifier, notebookUrl).href;
+  }
+  return specifier;
+}
+
+function importStatement(declaration: CellImport, notebookUrl: string): string | undefined {
+  const source = JSON.stringify(absoluteSpecifier(declaration.source, notebookUrl));
+  const attributes = declaration.attributes ? ` ${declaration.attributes}` : "";
+  if (declaration.typeOnly) return undefined;
+  if (declaration.bindings.length === 0) return `import ${source}${attributes};`;
+  const values = declaration.bindings.filter((binding) => !binding.typeOnly);
+  if (values.length === 0) return undefined;
+  const parts: string[] = [];
+  const named: string[] = [];
+  for (const binding of values) {
+    if (binding.imported === "default") parts.unshift(binding.local);
+    else if (binding.imported === "*") parts.push(`* as ${binding.local}`);
+    else {
+      const imported = /^[\p{L}_$][\p{L}\p{N}_$]*$/u.test(binding.imported)
+        ? binding.imported
+        : JSON.stringify(binding.imported);
+      named.push(imported === binding.local ? imported : `${imported} as ${binding.local}`);
+    }
+  }
+  if (named.length > 0) parts.push(`{ ${named.join(", ")} }`);
+  return `import ${parts.join(", ")} from ${source}${attributes};`;
+}
+
+/** Spaces in place of the code, keeping line breaks so lines stay where they were. */
+function blank(code: string, span: { start: number; end: number }): string {
+  return code.slice(span.start, span.end).replace(/[^\r\n]/g, " ");
+}
+
+function applyEdits(code: string, edits: Edit[]): string {
+  edits.sort((a, b) => a.start - b.start || a.end - b.end);
+  let out = "";
+  let at = 0;
+  for (const edit of edits) {
+    if (edit.start < at) continue;
+    out += code.slice(at, edit.start) + edit.text;
+    at = edit.end;
+  }
+  return out + code.slice(at);
+}

@@ -1,0 +1,355 @@
+/**
+ * The host side of the sandbox: one long-lived `deno run` child per session, with narrow
+ * permissions, fed batches of compiled cells over stdin and answering over stdout.
+ *
+ * Permissions of the child: no network, no writes, no subprocesses, no FFI, no system
+ * information, no environment beyond two named variables a chart library probes; reads
+ * only in the notebook's folder, the longtail checkout's `lib/` and `kernel/adjustable/`,
+ * `node_modules/` and the Deno cache (see {@linkcode sandboxPermissions}). The child
+ * inherits only the environment Deno needs to find its cache. A cell that runs past its time limit gets the child
+ * killed; the next batch starts a fresh one.
+ *
+ * @module
+ */
+import {
+  type ChildMessage,
+  type ChildStep,
+  decodeLine,
+  encodeLine,
+  type HostMessage,
+} from "./protocol.ts";
+
+/** Options for {@linkcode Sandbox}. */
+export interface SandboxOptions {
+  /** The longtail checkout (holds deno.json, lib/, kernel/). */
+  rootDir: string;
+  /** The notebook's folder: the child's working folder, readable. */
+  notebookDir: string;
+  /**
+   * Extra folders or files the child may read.
+   * @default {[]}
+   */
+  allowRead?: string[];
+  /**
+   * Per-cell time limit in milliseconds.
+   * @default {30000}
+   */
+  cellTimeoutMs?: number;
+}
+
+/** How a batch ended. */
+export type BatchEnd =
+  | { kind: "finished"; cancelled: boolean }
+  | { kind: "timeout"; cell: string; limitMs: number }
+  | { kind: "crashed"; cell?: string; detail: string };
+
+/** Default per-cell time limit, in milliseconds. */
+export const DEFAULT_CELL_TIMEOUT_MS = 30_000;
+
+/**
+ * The `deno run` permission flags for a sandbox.
+ *
+ * @param options Root, notebook folder and extra reads.
+ * @returns The flags: reads of a list of paths, and two named environment variables.
+ *
+ * @example Only reads are granted
+ * ```ts
+ * import { sandboxPermissions } from "./sandbox.ts";
+ * import { equal } from "node:assert/strict";
+ * const flags = sandboxPermissions({ rootDir: "/opt/longtail", notebookDir: "/home/amp" });
+ * equal(flags.filter((flag) => flag.startsWith("--allow-")).length, 2);
+ * equal(flags.some((flag) => flag.startsWith("--allow-read=") && flag.includes("/home/amp")), true);
+ * ```
+ */
+export function sandboxPermissions(options: SandboxOptions): string[] {
+  const sep = options.rootDir.includes("\\") ? "\\" : "/";
+  const join = (...parts: string[]) => parts.join(sep);
+  const reads = [
+    options.notebookDir,
+    join(options.rootDir, "lib"),
+    join(options.rootDir, "kernel", "adjustable"),
+    join(options.rootDir, "node_modules"),
+    ...denoCacheDirs(),
+    ...(options.allowRead ?? []),
+  ];
+  return [
+    "--no-prompt",
+    `--allow-read=${[...new Set(reads)].join(",")}`,
+    `--allow-env=${NAMED_VARIABLES.join(",")}`,
+  ];
+}
+
+/**
+ * Environment variables cells may read: only ones libraries probe when they load (jsdom's
+ * HTTP client asks for these two), and the sandbox sets none of them.
+ */
+export const NAMED_VARIABLES: readonly string[] = ["UNDICI_NO_WASM_SIMD", "UNDICI_USE_MILO"];
+
+/** What the child process inherits: just enough for Deno to find its cache. */
+function childEnvironment(): Record<string, string> {
+  const env: Record<string, string> = { NO_COLOR: "1", DENO_NO_UPDATE_CHECK: "1" };
+  for (const name of ["PATH", "HOME", "USERPROFILE", "LOCALAPPDATA", "DENO_DIR", "XDG_CACHE_HOME", "TMPDIR", "TEMP", "TMP", "SystemRoot"]) {
+    try {
+      const value = Deno.env.get(name);
+      if (value !== undefined) env[name] = value;
+    } catch {
+      // Not allowed to read it: leave it out.
+    }
+  }
+  return env;
+}
+
+function denoCacheDirs(): string[] {
+  try {
+    const explicit = Deno.env.get("DENO_DIR");
+    if (explicit) return [explicit];
+    const home = Deno.env.get("HOME") ?? Deno.env.get("USERPROFILE");
+    if (Deno.build.os === "windows") {
+      const local = Deno.env.get("LOCALAPPDATA");
+      return local ? [`${local}\\deno`] : [];
+    }
+    if (Deno.build.os === "darwin") return home ? [`${home}/Library/Caches/deno`] : [];
+    const xdg = Deno.env.get("XDG_CACHE_HOME");
+    return xdg ? [`${xdg}/deno`] : home ? [`${home}/.cache/deno`] : [];
+  } catch {
+    // Without env access the cache stays unreadable; imports of cached modules still load.
+    return [];
+  }
+}
+
+/** A sandbox process, started on first use and restarted after a kill. */
+export class Sandbox {
+  readonly #options: SandboxOptions;
+  #process: Deno.ChildProcess | undefined;
+  #writer: WritableStreamDefaultWriter<Uint8Array> | undefined;
+  #listener: ((message: ChildMessage) => void) | undefined;
+  #exited: Promise<Deno.CommandStatus> | undefined;
+  #ready: Promise<void> | undefined;
+  #stderr = "";
+  #batch = 0;
+  #running: number | undefined;
+
+  /**
+   * Creates a sandbox (the process starts with the first batch).
+   *
+   * @param options Folders, reads and the time limit.
+   */
+  constructor(options: SandboxOptions) {
+    this.#options = options;
+  }
+
+  /** Per-cell time limit in milliseconds. */
+  get cellTimeoutMs(): number {
+    return this.#options.cellTimeoutMs ?? DEFAULT_CELL_TIMEOUT_MS;
+  }
+
+  /** Whether a child process is alive. */
+  get alive(): boolean {
+    return this.#process !== undefined;
+  }
+
+  #start(): Promise<void> {
+    const root = this.#options.rootDir;
+    const childPath = new URL("./child.ts", import.meta.url);
+    const command = new Deno.Command(Deno.execPath(), {
+      args: [
+        "run",
+        "--quiet",
+        "--config",
+        `${root}/deno.json`,
+        "--no-lock",
+        ...sandboxPermissions(this.#options),
+        childPath.protocol === "file:" ? decodeURIComponent(childPath.pathname) : childPath.href,
+      ],
+      cwd: this.#options.notebookDir,
+      stdin: "piped",
+      stdout: "piped",
+      stderr: "piped",
+      clearEnv: true,
+      env: childEnvironment(),
+    });
+    const process = command.spawn();
+    this.#process = process;
+    this.#writer = process.stdin.getWriter();
+    this.#stderr = "";
+    this.#exited = process.status;
+    let signalReady: () => void = () => {};
+    let failReady: (error: Error) => void = () => {};
+    const ready = new Promise<void>((resolve, reject) => {
+      signalReady = resolve;
+      failReady = reject;
+    });
+    this.#readLines(process.stdout, (line) => {
+      let message: ChildMessage;
+      try {
+        message = decodeLine(line) as ChildMessage;
+      } catch {
+        return; // Stray text on stdout (a cell writing to it directly) is ignored.
+      }
+      if (message.type === "ready") signalReady();
+      else this.#listener?.(message);
+    });
+    this.#collectStderr(process.stderr);
+    process.status.then((status) => {
+      if (this.#process === process) {
+        this.#process = undefined;
+        this.#writer = undefined;
+      }
+      failReady(new Error(`The sandbox process exited (code ${status.code}) before it was ready`));
+    });
+    this.#ready = ready;
+    return ready;
+  }
+
+  async #readLines(stream: ReadableStream<Uint8Array>, onLine: (line: string) => void) {
+    const decoder = new TextDecoder();
+    let buffer = "";
+    try {
+      for await (const chunk of stream) {
+        buffer += decoder.decode(chunk, { stream: true });
+        let newline = buffer.indexOf("\n");
+        while (newline >= 0) {
+          onLine(buffer.slice(0, newline));
+          buffer = buffer.slice(newline + 1);
+          newline = buffer.indexOf("\n");
+        }
+      }
+    } catch {
+      // The process was killed mid-line.
+    }
+  }
+
+  async #collectStderr(stream: ReadableStream<Uint8Array>) {
+    const decoder = new TextDecoder();
+    try {
+      for await (const chunk of stream) {
+        this.#stderr = (this.#stderr + decoder.decode(chunk, { stream: true })).slice(-20_000);
+      }
+    } catch {
+      // Killed.
+    }
+  }
+
+  async #send(message: HostMessage): Promise<void> {
+    await this.#writer!.write(new TextEncoder().encode(encodeLine(message)));
+  }
+
+  /**
+   * Runs a batch of steps in order; messages arrive through `onMessage` as they happen.
+   *
+   * @param steps The steps, in plan order.
+   * @param options Adjustable values to use, the notebook URL, and the message callback.
+   * @returns How the batch ended.
+   */
+  async runBatch(
+    steps: ChildStep[],
+    options: {
+      values: Record<string, number>;
+      notebookUrl: string;
+      onMessage: (message: ChildMessage) => void;
+    },
+  ): Promise<BatchEnd> {
+    if (!this.#process) this.#start();
+    try {
+      await this.#ready;
+    } catch (error) {
+      return { kind: "crashed", detail: `${(error as Error).message}\n${this.#stderr}`.trim() };
+    }
+    const batch = ++this.#batch;
+    this.#running = batch;
+    const process = this.#process!;
+    const limitMs = this.cellTimeoutMs;
+    let timer: ReturnType<typeof setTimeout> | undefined;
+    let currentCell: string | undefined;
+    try {
+      return await new Promise<BatchEnd>((resolve) => {
+        const arm = (cell: string) => {
+          clearTimeout(timer);
+          currentCell = cell;
+          timer = setTimeout(() => {
+            this.kill();
+            resolve({ kind: "timeout", cell, limitMs });
+          }, limitMs);
+        };
+        this.#listener = (message) => {
+          if (!("batch" in message) || message.batch !== batch) return;
+          if (message.type === "started") arm(message.cell);
+          if (message.type === "done" || message.type === "failed") {
+            clearTimeout(timer);
+            currentCell = undefined;
+          }
+          if (message.type === "batchEnd") resolve({ kind: "finished", cancelled: message.cancelled });
+          else options.onMessage(message);
+        };
+        process.status.then((status) => {
+          // Give the stderr reader a moment to catch the last words.
+          setTimeout(() =>
+            resolve({
+              kind: "crashed",
+              cell: currentCell,
+              detail: `The sandbox process exited (code ${status.code}${
+                status.signal ? `, signal ${status.signal}` : ""
+              })\n${this.#stderr}`.trim(),
+            }), 50);
+        });
+        this.#send({
+          type: "run",
+          batch,
+          steps,
+          values: options.values,
+          notebookUrl: options.notebookUrl,
+        }).catch(() => {});
+      });
+    } finally {
+      clearTimeout(timer);
+      this.#listener = undefined;
+      this.#running = undefined;
+    }
+  }
+
+  /** Asks the child to stop the running batch after its current cell. */
+  cancel(): void {
+    if (this.#running !== undefined && this.#process) {
+      this.#send({ type: "cancel", batch: this.#running }).catch(() => {});
+    }
+  }
+
+  /** Kills the child process (values are lost; the next batch starts a new one). */
+  kill(): void {
+    const process = this.#process;
+    if (!process) return;
+    this.#process = undefined;
+    this.#writer = undefined;
+    try {
+      process.kill("SIGKILL");
+    } catch {
+      // Already gone.
+    }
+  }
+
+  /** Stops the child and waits for it to exit. */
+  async close(): Promise<void> {
+    const process = this.#process;
+    const exited = this.#exited;
+    if (!process) {
+      await exited?.catch(() => {});
+      return;
+    }
+    this.#process = undefined;
+    try {
+      await this.#writer?.close();
+    } catch {
+      // Closed already.
+    }
+    this.#writer = undefined;
+    const timer = setTimeout(() => {
+      try {
+        process.kill("SIGKILL");
+      } catch {
+        // Gone.
+      }
+    }, 2000);
+    await exited?.catch(() => {});
+    clearTimeout(timer);
+  }
+}
