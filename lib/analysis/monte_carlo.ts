@@ -121,11 +121,71 @@ function interpolate(sorted: Float64Array, p: number): number {
  */
 export function percentile(values: ArrayLike<number>, p: number): number {
   requireInRange("p", p, 0, 1);
-  return interpolate(finiteCopy(values, "values").sort(), p);
+  return selectPercentiles(finiteCopy(values, "values"), [p])[0];
 }
 
 /**
- * Several percentiles of one sample, sorting it once.
+ * Percentiles by selection instead of a full sort: each needed order statistic is placed by
+ * a quickselect (Hoare partition, median-of-three pivot), working left to right so every
+ * search starts where the previous one ended. Same values as sorting, in O(N) for a few p.
+ */
+function selectPercentiles(work: Float64Array, ps: readonly number[]): number[] {
+  const n = work.length;
+  const last = n - 1;
+  const needed = new Set<number>();
+  for (const p of ps) {
+    const below = Math.floor(p * last);
+    needed.add(below);
+    needed.add(Math.min(below + 1, last));
+  }
+  let lo = 0;
+  for (const k of [...needed].sort((x, y) => x - y)) {
+    selectInPlace(work, k, lo, last);
+    lo = k + 1;
+  }
+  // The selected positions now hold the order statistics `interpolate` reads.
+  return ps.map((p) => interpolate(work, p));
+}
+
+function selectInPlace(a: Float64Array, k: number, lo: number, hi: number): void {
+  while (hi > lo) {
+    if (hi - lo < 12) {
+      for (let i = lo + 1; i <= hi; i++) {
+        const x = a[i];
+        let j = i - 1;
+        while (j >= lo && a[j] > x) {
+          a[j + 1] = a[j];
+          j--;
+        }
+        a[j + 1] = x;
+      }
+      return;
+    }
+    const mid = (lo + hi) >>> 1;
+    const x = a[lo], y = a[mid], z = a[hi];
+    const pivot = x < y ? (y < z ? y : x < z ? z : x) : (x < z ? x : y < z ? z : y);
+    let i = lo;
+    let j = hi;
+    while (i <= j) {
+      while (a[i] < pivot) i++;
+      while (a[j] > pivot) j--;
+      if (i <= j) {
+        const t = a[i];
+        a[i] = a[j];
+        a[j] = t;
+        i++;
+        j--;
+      }
+    }
+    // Now a[lo..j] ≤ pivot ≤ a[i..hi], and everything strictly between equals the pivot.
+    if (k <= j) hi = j;
+    else if (k >= i) lo = i;
+    else return;
+  }
+}
+
+/**
+ * Several percentiles of one sample, found by selection (no full sort).
  *
  * @param values The sample; not changed.
  * @param ps Fractions from 0 to 1.
@@ -143,8 +203,7 @@ export function percentile(values: ArrayLike<number>, p: number): number {
  */
 export function percentiles(values: ArrayLike<number>, ps: readonly number[]): number[] {
   ps.forEach((p, i) => requireInRange(`ps[${i}]`, p, 0, 1));
-  const sorted = finiteCopy(values, "values").sort();
-  return ps.map((p) => interpolate(sorted, p));
+  return selectPercentiles(finiteCopy(values, "values"), ps);
 }
 
 /** A yield estimate from a Monte Carlo run. */

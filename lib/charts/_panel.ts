@@ -12,6 +12,10 @@ import { CHART_PALETTE, LIMIT_DASH } from "./palette.ts";
 
 /** Default panel height in px. */
 export const PANEL_HEIGHT = 250;
+/** Default space above a panel's plot area in px. */
+export const PANEL_MARGIN_TOP = 16;
+/** Default space below a panel's plot area (tick labels and axis label) in px. */
+export const PANEL_MARGIN_BOTTOM = 44;
 
 /** Where a log axis keeps its ticks, for {@linkcode panel} to draw. */
 const LOG_TICKS: unique symbol = Symbol("longtail.logTicks") as never;
@@ -62,8 +66,8 @@ export function panel(extra: ChartPanel): ChartPanel {
     height: PANEL_HEIGHT,
     marginLeft: 66,
     marginRight: 30,
-    marginTop: 16,
-    marginBottom: 44,
+    marginTop: PANEL_MARGIN_TOP,
+    marginBottom: PANEL_MARGIN_BOTTOM,
     style: { background: "white", color: CHART_PALETTE.note },
     ...extra,
     ...scales,
@@ -150,9 +154,15 @@ export function limitRuleX(values: number[]): Plot.RuleX {
 
 /** Pads a linear extent by a fraction of its span (and gives zero spans some height). */
 export function padExtent(values: number[], fraction = 0.05): [number, number] {
-  const finite = values.filter(Number.isFinite);
-  let lo = Math.min(...finite);
-  let hi = Math.max(...finite);
+  // A loop, not Math.min(...values): a Monte Carlo run can hold more values than the call
+  // stack takes arguments.
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const v of values) {
+    if (!Number.isFinite(v)) continue;
+    if (v < lo) lo = v;
+    if (v > hi) hi = v;
+  }
   if (hi === lo) {
     const d = lo === 0 ? 1 : Math.abs(lo) * 0.1;
     lo -= d;

@@ -31,7 +31,8 @@ export interface HarmonicSpectrumChartOptions {
   maxOrder?: number;
   /**
    * Bottom of the bars, in dBc. By default 10 dB under the lowest harmonic drawn, rounded
-   * down to 20 dB, but not under −160 dBc.
+   * down to 20 dB, but not under −160 dBc. Harmonics below it sit on the floor, labelled
+   * "< floor" (e.g. "< −160").
    */
   floorDb?: number;
   /** Largest acceptable level of any harmonic, in dBc: draws the limit line. */
@@ -69,6 +70,14 @@ function levels(amplitudes: ArrayLike<number>, maxOrder: number): number[] {
  * const chart = harmonicSpectrumChart({ amplitudes: [0, 1, 0.01, 0.001] });
  * ok(chart.description.includes("H2 −40 dBc"));
  * ```
+ *
+ * @example A harmonic lost in rounding noise reads "< −160", not "−318"
+ * ```ts
+ * import { harmonicSpectrumChart } from "./harmonic_spectrum_chart.ts";
+ * import { ok } from "node:assert/strict";
+ * const chart = harmonicSpectrumChart({ amplitudes: [0, 1, 1e-16, 0.001] });
+ * ok(chart.description.includes("H2 < −160 dBc"));
+ * ```
  */
 export function harmonicSpectrumChart(
   spectrum: SpectrumChartInput,
@@ -93,11 +102,15 @@ export function harmonicSpectrumChart(
   const lowest = harmonicsDb.length > 0 ? Math.min(...harmonicsDb) : -60;
   const floor = options.floorDb ?? Math.max(-160, Math.floor((lowest - 10) / 20) * 20);
   requireFinite("floorDb", floor);
+  const dbText = (x: number) => formatSi(x, "", { digits: 3 }).replace("-", "\u2212");
+  // A level under the floor (or a zero amplitude, −∞ dBc) is drawn at the floor and labelled
+  // "< floor": printing "−318 dBc" for a numerically empty bin would claim a precision the
+  // record does not have.
   const bars = db.map((level, i) => ({
     order: i + 1,
     level,
     shown: Math.max(floor, Number.isFinite(level) ? level : floor),
-    label: Number.isFinite(level) ? formatSi(level, "", { digits: 3 }).replace("-", "\u2212") : "—",
+    label: level >= floor ? dbText(level) : `< ${dbText(floor)}`,
   }));
   let sum = 0;
   for (let n = 2; n <= maxOrder; n++) sum += amplitudes[n] ** 2;

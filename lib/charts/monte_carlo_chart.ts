@@ -60,6 +60,20 @@ export interface MonteCarloChartOptions {
 }
 
 /**
+ * The yield as a percentage that never reads 100 % while a trial failed: more digits until
+ * the rounding stops hiding the failures ("99.985%"), and "> 99.9999%" past six digits.
+ */
+function yieldPercent(passing: number, trials: number): string {
+  const percent = (100 * passing) / trials;
+  if (passing === trials) return "100%";
+  for (let digits = 3; digits <= 6; digits++) {
+    const text = formatSi(percent, "%", { digits });
+    if (Number.parseFloat(text) < 100) return text;
+  }
+  return "> 99.9999%";
+}
+
+/**
  * Charts the spread of a Monte Carlo result with its requirement and yield.
  *
  * @param values One result per trial.
@@ -100,7 +114,7 @@ export function monteCarloChart(
   const show = (v: number) => formatSi(v, unit, { digits: 3 });
   const yieldText = bounds.length === 0
     ? `${n} trials, ${show(sorted[0])} … ${show(sorted[n - 1])}`
-    : `yield ${formatSi((100 * passing) / n, "%", { digits: 3 })} (${passing} of ${n})`;
+    : `yield ${yieldPercent(passing, n)} (${passing} of ${n})`;
   const requirementText = min !== undefined && max !== undefined
     ? `requirement ${show(min)} … ${show(max)}`
     : min !== undefined
@@ -108,7 +122,7 @@ export function monteCarloChart(
     : max !== undefined
     ? `requirement ≤ ${show(max)}`
     : "no requirement";
-  const xDomain = padExtent([...sorted, ...bounds], 0.04);
+  const xDomain = padExtent([sorted[0], sorted[n - 1], ...bounds], 0.04);
   const x = linearAxis(label, unit, { domain: xDomain });
   const limitMarks: Plot.Markish[] = bounds.length === 0 ? [] : [
     limitRuleX(bounds),

@@ -10,7 +10,17 @@ import { requireFinite, requirePositive } from "../_validate.ts";
 import { formatSi } from "../units/format.ts";
 import { Chart } from "./chart.ts";
 import { requirePoints } from "./_interpolate.ts";
-import { annotation, limitRuleY, linearAxis, logAxis, padExtent, panel } from "./_panel.ts";
+import {
+  annotation,
+  limitRuleY,
+  linearAxis,
+  logAxis,
+  padExtent,
+  panel,
+  PANEL_HEIGHT,
+  PANEL_MARGIN_BOTTOM,
+  PANEL_MARGIN_TOP,
+} from "./_panel.ts";
 import { CHART_PALETTE, CHART_SERIES } from "./palette.ts";
 
 /** How to read a number from a row: a dotted path (`"pair.cmrr"`) or a function. */
@@ -171,6 +181,7 @@ export function sweepChart<T>(rows: readonly T[], options: SweepChartOptions<T>)
       ),
     );
   }
+  const labelOffsets = multi ? seriesLabelOffsets(table, yScale, yValues) : [];
   table.forEach((points, k) => {
     const colour = CHART_SERIES[k % CHART_SERIES.length];
     marks.push(
@@ -189,6 +200,7 @@ export function sweepChart<T>(rows: readonly T[], options: SweepChartOptions<T>)
           text: () => points[0].series,
           textAnchor: "start",
           dx: 8,
+          dy: labelOffsets[k],
           fill: colour,
           fontWeight: "bold",
         }),
@@ -217,4 +229,47 @@ export function sweepChart<T>(rows: readonly T[], options: SweepChartOptions<T>)
     width: options.width,
     panels: [panel({ marginRight: labelRoom, x: xAxis, y: yAxis, marks })],
   });
+}
+
+/** Smallest vertical distance between two series labels, in px (11 px text plus air). */
+const LABEL_GAP = 13;
+
+/**
+ * Vertical offsets (px) that keep the series labels at the right end at least LABEL_GAP
+ * apart: where lines end close together their names would print over each other.
+ *
+ * ```
+ *   ─────────── gain A        labels sorted by height, pushed down while they crowd,
+ *   ─────────── gain B   →    then pulled back up if the last one left the plot
+ * ```
+ *
+ * The y mapping uses the padded data domain before Plot tidies it ("nice"), so it can be a
+ * pixel or two off; the gap has room for that.
+ */
+function seriesLabelOffsets(
+  table: { x: number; y: number }[][],
+  yScale: "linear" | "log",
+  yValues: number[],
+): number[] {
+  const top = PANEL_MARGIN_TOP;
+  const bottom = PANEL_HEIGHT - PANEL_MARGIN_BOTTOM;
+  const map = (v: number) => (yScale === "log" ? Math.log10(v) : v);
+  const [d0, d1] = yScale === "log"
+    ? [Math.min(...yValues), Math.max(...yValues)].map(map)
+    : padExtent(yValues, 0.08);
+  const span = d1 - d0 || 1;
+  const wanted = table.map((points) =>
+    top + ((d1 - map(points[points.length - 1].y)) / span) * (bottom - top)
+  );
+  const order = wanted.map((_, i) => i).sort((a, b) => wanted[a] - wanted[b] || a - b);
+  const placed = wanted.slice();
+  for (let j = 1; j < order.length; j++) {
+    placed[order[j]] = Math.max(wanted[order[j]], placed[order[j - 1]] + LABEL_GAP);
+  }
+  const last = order[order.length - 1];
+  placed[last] = Math.min(placed[last], bottom);
+  for (let j = order.length - 2; j >= 0; j--) {
+    placed[order[j]] = Math.min(placed[order[j]], placed[order[j + 1]] - LABEL_GAP);
+  }
+  return placed.map((y, i) => y - wanted[i]);
 }

@@ -6,7 +6,7 @@
  *
  * @module
  */
-import { formatSi } from "../units/format.ts";
+import { formatSi, TRADE_UNITS } from "../units/format.ts";
 
 /** The marker every check result carries; the kernel looks for it by this global symbol. */
 export const CHECK_MARKER: unique symbol = Symbol.for("longtail.check") as never;
@@ -30,10 +30,14 @@ export interface CheckResult {
   readonly [CHECK_MARKER]: 1;
   /** Short name a reviewer recognises, e.g. `"phase margin"`. */
   name: string;
-  /** The checked value, in SI base units (or the unit given). */
+  /** The checked value, in `unit` (SI base units unless a `displayUnit` was asked for). */
   value: number;
-  /** Unit symbol of `value` and the limits. */
+  /** Unit symbol of `value`, the limits and the margin (`""` or `"ratio"`: a pure number). */
   unit: string;
+  /** The value in SI base units, present only when the check reports in a trade unit. */
+  siValue?: number;
+  /** The SI unit of `siValue`, present only when the check reports in a trade unit. */
+  siUnit?: string;
   /** The limit. */
   limit: Limit;
   /** True when the value meets the limit. */
@@ -64,6 +68,14 @@ export interface CheckOptions {
    * @default {4}
    */
   digits?: number;
+  /**
+   * Trade unit to report in (a key of `TRADE_UNITS`, e.g. `"V/µs"` for a `"V/s"` check):
+   * the value and limit are still given in `unit`, and the result's `value`, `limit`,
+   * `margin` and `unit` are converted, so every front-end prints "19.9 V/µs" rather than
+   * "19.9 MV/s". The SI value stays in `siValue`.
+   * @default {unit}
+   */
+  displayUnit?: string;
 }
 
 function build(
@@ -72,6 +84,9 @@ function build(
   limit: Limit,
   options: CheckOptions,
 ): CheckResult {
+  if (options.displayUnit !== undefined && options.displayUnit !== (options.unit ?? "")) {
+    return inTradeUnit(name, value, limit, options, options.displayUnit);
+  }
   const unit = options.unit ?? "";
   const show = (x: number) => formatSi(x, unit, { digits: options.digits ?? 4 });
   let margin = Number.NaN;
@@ -102,14 +117,45 @@ function build(
   return { [CHECK_MARKER]: 1, name, value, unit, limit, pass, margin, marginRatio, reason };
 }
 
+function inTradeUnit(
+  name: string,
+  value: number,
+  limit: Limit,
+  options: CheckOptions,
+  displayUnit: string,
+): CheckResult {
+  const siUnit = options.unit ?? "";
+  const trade = Object.hasOwn(TRADE_UNITS, displayUnit) ? TRADE_UNITS[displayUnit] : undefined;
+  if (!trade || trade.siUnit !== siUnit) {
+    const known = Object.entries(TRADE_UNITS)
+      .filter(([, t]) => t.siUnit === siUnit)
+      .map(([u]) => `"${u}"`);
+    throw new RangeError(
+      `Expected displayUnit to be a trade unit of "${siUnit}" (${
+        known.length > 0 ? known.join(", ") : "none known"
+      }), but found "${displayUnit}"`,
+    );
+  }
+  const scaled: Limit = { kind: limit.kind };
+  if (limit.min !== undefined) scaled.min = limit.min / trade.size;
+  if (limit.max !== undefined) scaled.max = limit.max / trade.size;
+  const result = build(name, value / trade.size, scaled, {
+    ...options,
+    unit: displayUnit,
+    displayUnit: undefined,
+  });
+  return { ...result, siValue: value, siUnit };
+}
+
 /**
  * Checks that `value >= min`.
  *
  * @param name What is checked, e.g. `"phase margin"`.
  * @param value The design's value.
  * @param min The smallest acceptable value.
- * @param options Unit and digits.
+ * @param options Unit, digits and the trade unit to report in.
  * @returns The check result.
+ * @throws {RangeError} If `displayUnit` is not a trade unit of `unit`.
  *
  * @example Phase margin over 45°
  * ```ts
@@ -118,6 +164,15 @@ function build(
  * const check = atLeast("phase margin", 61.1, 45, { unit: "°" });
  * equal(check.pass, true);
  * equal(check.reason, "phase margin = 61.1° is at least 45° (margin 16.1°)");
+ * ```
+ *
+ * @example A slew rate reported in the trade unit V/µs
+ * ```ts
+ * import { atLeast } from "./check.ts";
+ * import { equal } from "node:assert/strict";
+ * const check = atLeast("slew rate", 19.9e6, 15e6, { unit: "V/s", displayUnit: "V/µs" });
+ * equal(check.reason, "slew rate = 19.9 V/µs is at least 15 V/µs (margin 4.9 V/µs)");
+ * equal(check.siValue, 19.9e6);
  * ```
  */
 export function atLeast(
@@ -135,8 +190,9 @@ export function atLeast(
  * @param name What is checked, e.g. `"junction temperature"`.
  * @param value The design's value.
  * @param max The largest acceptable value.
- * @param options Unit and digits.
+ * @param options Unit, digits and the trade unit to report in.
  * @returns The check result.
+ * @throws {RangeError} If `displayUnit` is not a trade unit of `unit`.
  *
  * @example Junction temperature over its limit fails with a negative margin
  * ```ts
@@ -163,9 +219,9 @@ export function atMost(
  * @param value The design's value.
  * @param min Lower bound.
  * @param max Upper bound.
- * @param options Unit and digits.
+ * @param options Unit, digits and the trade unit to report in.
  * @returns The check result.
- * @throws {RangeError} If `min > max`.
+ * @throws {RangeError} If `min > max`, or `displayUnit` is not a trade unit of `unit`.
  *
  * @example Output offset within ±50 mV
  * ```ts

@@ -253,7 +253,12 @@ export function _requirementChecks(
         "Expected compensationCapacitance to be given when requirements.slewRate is, but found undefined",
       );
     }
-    checks.push(atLeast("slew rate", values.slew.slewRate, requirements.slewRate, { unit: "V/s" }));
+    checks.push(
+      atLeast("slew rate", values.slew.slewRate, requirements.slewRate, {
+        unit: "V/s",
+        displayUnit: "V/µs",
+      }),
+    );
   }
   if (requirements.linearInputRange !== undefined) {
     requireFinite("requirements.linearInputRange", requirements.linearInputRange);

@@ -27,14 +27,18 @@ import { _db } from "./_pair_common.ts";
 
 /** Where a trial writes its results. */
 export interface _TrialSink {
+  /** The run's CMRR: differential output for resistive loads, single-ended for a mirror. */
   cmrrDb: number;
+  /** Single-ended CMRR at c2. */
+  cmrrSingleEndedDb: number;
   offset: number;
 }
 
-function cmrrOf(response: _PairResponse, mirror: boolean): number {
+function writeCmrr(response: _PairResponse, mirror: boolean, sink: _TrialSink): void {
   const d = response.differential;
   const c = response.commonMode;
-  return mirror ? _db(d.c2 / c.c2) : _db((d.c2 - d.c1) / (c.c2 - c.c1));
+  sink.cmrrSingleEndedDb = _db(d.c2 / c.c2);
+  sink.cmrrDb = mirror ? sink.cmrrSingleEndedDb : _db((d.c2 - d.c1) / (c.c2 - c.c1));
 }
 
 /** A BJT trial through the general path. */
@@ -46,7 +50,7 @@ export function _bjtTrialGeneral(
   sink: _TrialSink,
 ): void {
   const point = _bjtOperatingPoint(core, parts, current, inputCommonMode);
-  sink.cmrrDb = cmrrOf(_solvePair(_bjtNetwork(core, parts, point)), core.load.kind === "mirror");
+  writeCmrr(_solvePair(_bjtNetwork(core, parts, point)), core.load.kind === "mirror", sink);
   sink.offset = _bjtExactOffset(core, parts, point);
 }
 
@@ -69,7 +73,10 @@ export function _bjtTrialFast(
   const re = core.degeneration;
   const a1 = _alpha(parts.beta1);
   const a2 = _alpha(parts.beta2);
-  const u = _bjtSplit(core, parts, current, 0);
+  // Without degeneration the split is closed-form (the hot path of the Monte Carlo bench);
+  // the same expression as _bjtSplit's, so both give the same bits.
+  const isTerm = vt * Math.log((a1 * parts.is2) / (a2 * parts.is1));
+  const u = re === 0 ? -isTerm / vt : _bjtSplit(core, parts, current, 0);
   const ie1 = current / (1 + Math.exp(-u));
   const ie2 = current - ie1;
   const y1 = 1 / (vt / ie1 + re);
@@ -81,9 +88,11 @@ export function _bjtTrialFast(
   const vec = (y1 + y2) / total;
   const vodCm = (1 - vec) * (a1 * y1 * parts.rc1 - a2 * y2 * parts.rc2);
   sink.cmrrDb = _db(vodDiff / vodCm);
+  // Single-ended at c2: vc2 = −α2·ie2·RC2 for each drive, so RC2 and α2 cancel.
+  sink.cmrrSingleEndedDb = _db((-0.5 - ved) / (1 - vec));
   const u0 = Math.log((a2 * parts.rc2) / (a1 * parts.rc1));
-  sink.offset = -(vt * u0 + re * current * Math.tanh(u0 / 2) +
-    vt * Math.log((a1 * parts.is2) / (a2 * parts.is1)));
+  const degenerated = re === 0 ? 0 : re * current * Math.tanh(u0 / 2);
+  sink.offset = -(vt * u0 + degenerated + isTerm);
 }
 
 /** A MOS trial through the general path. */
@@ -95,6 +104,6 @@ export function _mosTrial(
   sink: _TrialSink,
 ): void {
   const point = _mosOperatingPoint(core, parts, current, inputCommonMode);
-  sink.cmrrDb = cmrrOf(_solvePair(_mosNetwork(core, parts, point)), core.load.kind === "mirror");
+  writeCmrr(_solvePair(_mosNetwork(core, parts, point)), core.load.kind === "mirror", sink);
   sink.offset = _mosExactOffset(core, parts, point);
 }

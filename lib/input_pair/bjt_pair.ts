@@ -19,7 +19,8 @@
 import { requireFinite, requireNonNegative, requirePositive } from "../_validate.ts";
 import { atLeast, type CheckResult } from "../checks/check.ts";
 import type { TwoPort } from "../cascade/two_port.ts";
-import { BOLTZMANN, DEFAULT_TEMPERATURE, ELEMENTARY_CHARGE } from "../physics/constants.ts";
+import { BOLTZMANN, DEFAULT_TEMPERATURE } from "../physics/constants.ts";
+import { shotNoiseDensity } from "../physics/noise.ts";
 import { thermalVoltage } from "../physics/thermal_voltage.ts";
 import {
   _alpha,
@@ -610,7 +611,7 @@ export function bjtPair(options: BjtPairOptions): BjtPairResult {
   const noise: PairNoise = {
     deviceVoltageDensity,
     voltageDensity: Math.SQRT2 * deviceVoltageDensity,
-    currentDensity: Math.sqrt(2 * ELEMENTARY_CHARGE * inputBiasCurrent),
+    currentDensity: shotNoiseDensity(inputBiasCurrent),
   };
 
   const slew = _slew(

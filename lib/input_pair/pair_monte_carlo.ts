@@ -6,7 +6,13 @@
  */
 import { requireNonNegative } from "../_validate.ts";
 import { monteCarlo, percentiles } from "../analysis/monte_carlo.ts";
-import type { Random } from "../analysis/random.ts";
+import {
+  DEFAULT_TOLERANCE_DISTRIBUTION,
+  type Random,
+  toleranceDeviation,
+  type ToleranceOptions,
+} from "../analysis/random.ts";
+import type { _TrialSink } from "./_trials.ts";
 import { type _BjtParts, _bjtTailCurrent } from "./_bjt_core.ts";
 import { type _MosParts, _mosTailCurrent } from "./_mos_core.ts";
 import { _bjtFastApplies, _bjtTrialFast, _bjtTrialGeneral, _mosTrial } from "./_trials.ts";
@@ -23,11 +29,20 @@ export interface PairMonteCarloOptions {
    */
   seed?: number;
   /**
-   * Tolerance of each load resistor, a fraction, treated as 3σ of a Gaussian
-   * (0.01 = "1 %" ⇒ σ = 0.333 %). The two resistors vary independently.
+   * Tolerance of each load resistor, a fraction (0.01 = "1 %"); how it spreads is set by
+   * `loadDistribution` (by default a Gaussian with the tolerance as 3σ, so σ = 0.333 %).
+   * The two resistors vary independently.
    * @default {0}
    */
   loadTolerance?: number;
+  /**
+   * How the load resistors spread inside `loadTolerance`: the distributions of
+   * `sampleTolerance` in lib/analysis/random.ts (`"gaussian3sigma"`, `"uniform"`,
+   * `"corners"`, `"binned"` with its `innerTolerance`, and `truncate`). REFERENCE §9.6: "a
+   * 1 % tolerance is not a σ", so say which one a study assumes.
+   * @default {{ distribution: "gaussian3sigma" }}
+   */
+  loadDistribution?: ToleranceOptions;
 }
 
 /** Spreads of a BJT pair's device mismatch. */
@@ -57,6 +72,11 @@ export interface PairMonteCarloResult {
   cmrrDefinition: "differential" | "singleEnded";
   /** CMRR of each trial in dB (exact small-signal, all sampled mismatch at once). */
   cmrrDb: Float64Array;
+  /**
+   * Single-ended CMRR of each trial in dB, at the second output (c2): Ad,se/Acm,se. Barely
+   * moved by load mismatch (REFERENCE §9.4); the same as `cmrrDb` for a mirror load.
+   */
+  cmrrSingleEndedDb: Float64Array;
   /** Exact input offset of each trial, V (see `PairOffset.exact`). */
   offset: Float64Array;
   /** Median CMRR, dB. */
@@ -72,20 +92,21 @@ export interface PairMonteCarloResult {
 }
 
 function summarise(
-  cmrrDb: Float64Array,
-  offset: Float64Array,
+  run: TrialArrays,
   definition: "differential" | "singleEnded",
 ): PairMonteCarloResult {
+  const { cmrrDb, cmrrSingleEndedDb, offset } = run;
   const [p1, p5, median] = percentiles(cmrrDb, [0.01, 0.05, 0.5]);
   let sum = 0;
-  for (const x of offset) sum += x;
+  for (let i = 0; i < offset.length; i++) sum += offset[i];
   const mean = sum / offset.length;
   let squares = 0;
-  for (const x of offset) squares += (x - mean) ** 2;
+  for (let i = 0; i < offset.length; i++) squares += (offset[i] - mean) ** 2;
   return {
     trials: offset.length,
     cmrrDefinition: definition,
     cmrrDb,
+    cmrrSingleEndedDb,
     offset,
     cmrrDbMedian: median,
     cmrrDbPercentile5: p5,
@@ -93,6 +114,35 @@ function summarise(
     offsetMean: mean,
     offsetSd: offset.length > 1 ? Math.sqrt(squares / (offset.length - 1)) : 0,
   };
+}
+
+interface TrialArrays {
+  cmrrDb: Float64Array;
+  cmrrSingleEndedDb: Float64Array;
+  offset: Float64Array;
+}
+
+/**
+ * What the BJT and MOS runs share: the seeded loop, the per-trial arrays and the sink each
+ * trial writes into (one object for the whole run, so the hot loop allocates nothing).
+ */
+function runTrials(
+  spreadOptions: PairMonteCarloOptions,
+  trial: (random: Random, sink: _TrialSink) => void,
+): TrialArrays {
+  const trials = spreadOptions.trials;
+  const cmrrDb = new Float64Array(Math.max(0, Math.floor(trials)) || 1);
+  const cmrrSingleEndedDb = new Float64Array(cmrrDb.length);
+  const offset = new Float64Array(cmrrDb.length);
+  const sink: _TrialSink = { cmrrDb: 0, cmrrSingleEndedDb: 0, offset: 0 };
+  monteCarlo(trials, (random: Random, i: number) => {
+    trial(random, sink);
+    cmrrDb[i] = sink.cmrrDb;
+    cmrrSingleEndedDb[i] = sink.cmrrSingleEndedDb;
+    offset[i] = sink.offset;
+    return i;
+  }, { seed: spreadOptions.seed });
+  return { cmrrDb, cmrrSingleEndedDb, offset };
 }
 
 function draw(random: Random, sd: number): number {
@@ -103,6 +153,26 @@ function spread(name: string, value: number | undefined): number {
   const sd = value ?? 0;
   requireNonNegative(name, sd);
   return sd;
+}
+
+/**
+ * A drawer of relative load deviations. The default (3σ Gaussian) draws exactly as
+ * `toleranceDeviation` does, but skips its per-call option handling in the hot loop; a zero
+ * tolerance draws nothing, so the other spreads keep their random stream.
+ */
+function loadDeviation(
+  spreadOptions: PairMonteCarloOptions,
+): (random: Random) => number {
+  const tolerance = spread("loadTolerance", spreadOptions.loadTolerance);
+  const shape = spreadOptions.loadDistribution ?? {};
+  const distribution = shape.distribution ?? DEFAULT_TOLERANCE_DISTRIBUTION;
+  if (tolerance === 0) return () => 0;
+  // Any other shape goes through toleranceDeviation, which rejects a bad one on the first draw.
+  if (distribution === "gaussian3sigma" && !shape.truncate) {
+    const sd = tolerance / 3;
+    return (random) => random.normal(0, sd);
+  }
+  return (random) => toleranceDeviation(random, tolerance, shape);
 }
 
 /**
@@ -134,36 +204,29 @@ export function bjtPairMonteCarlo(
 ): PairMonteCarloResult {
   bjtPair({ ...options, mismatch: undefined }); // validates the nominal design and its bias
   const { core, inputCommonMode } = _bjtCore({ ...options, mismatch: undefined });
-  const tolerance = spread("loadTolerance", spreadOptions.loadTolerance) / 3;
+  const deviation = loadDeviation(spreadOptions);
   const isSpread = spread("saturationCurrentSpread", spreadOptions.saturationCurrentSpread);
   const betaSpread = spread("betaSpread", spreadOptions.betaSpread);
   const current = _bjtTailCurrent(core, inputCommonMode);
   const nominalIs = _bjtNominalIs(core, current);
   const rc = core.load.kind === "resistors" ? core.load.resistance : Number.NaN;
   const mirror = core.load.kind === "mirror";
-  const trials = spreadOptions.trials;
-  const cmrrDb = new Float64Array(Math.max(0, Math.floor(trials)) || 1);
-  const offset = new Float64Array(cmrrDb.length);
-  const sink = { cmrrDb: 0, offset: 0 };
   const fast = _bjtFastApplies(core);
-  monteCarlo(trials, (random: Random, i: number) => {
+  const parts: _BjtParts = { rc1: rc, rc2: rc, is1: 0, is2: 0, beta1: 0, beta2: 0 };
+  const run = runTrials(spreadOptions, (random, sink) => {
+    // The draw order (ΔIs, Δβ, RC1, RC2) is part of what a seed repeats.
     const dIs = draw(random, isSpread);
     const dBeta = draw(random, betaSpread);
-    const parts: _BjtParts = {
-      rc1: rc * (1 + draw(random, tolerance)),
-      rc2: rc * (1 + draw(random, tolerance)),
-      is1: nominalIs * (1 + dIs / 2),
-      is2: nominalIs * (1 - dIs / 2),
-      beta1: core.beta * (1 + dBeta / 2),
-      beta2: core.beta * (1 - dBeta / 2),
-    };
+    parts.rc1 = rc * (1 + deviation(random));
+    parts.rc2 = rc * (1 + deviation(random));
+    parts.is1 = nominalIs * (1 + dIs / 2);
+    parts.is2 = nominalIs * (1 - dIs / 2);
+    parts.beta1 = core.beta * (1 + dBeta / 2);
+    parts.beta2 = core.beta * (1 - dBeta / 2);
     if (fast) _bjtTrialFast(core, current, parts, sink);
     else _bjtTrialGeneral(core, current, inputCommonMode, parts, sink);
-    cmrrDb[i] = sink.cmrrDb;
-    offset[i] = sink.offset;
-    return i;
-  }, { seed: spreadOptions.seed });
-  return summarise(cmrrDb, offset, mirror ? "singleEnded" : "differential");
+  });
+  return summarise(run, mirror ? "singleEnded" : "differential");
 }
 
 /**
@@ -196,32 +259,25 @@ export function mosPairMonteCarlo(
 ): PairMonteCarloResult {
   mosPair({ ...options, mismatch: undefined });
   const { core, inputCommonMode } = _mosCore({ ...options, mismatch: undefined });
-  const tolerance = spread("loadTolerance", spreadOptions.loadTolerance) / 3;
+  const deviation = loadDeviation(spreadOptions);
   const vtSpread = spread("thresholdSpread", spreadOptions.thresholdSpread);
   const knSpread = spread("aspectRatioSpread", spreadOptions.aspectRatioSpread);
   const current = _mosTailCurrent(core, inputCommonMode);
   const rd = core.load.kind === "resistors" ? core.load.resistance : Number.NaN;
   const kn = core.transconductanceParameter;
   const mirror = core.load.kind === "mirror";
-  const trials = spreadOptions.trials;
-  const cmrrDb = new Float64Array(Math.max(0, Math.floor(trials)) || 1);
-  const offset = new Float64Array(cmrrDb.length);
-  const sink = { cmrrDb: 0, offset: 0 };
-  monteCarlo(trials, (random: Random, i: number) => {
+  const parts: _MosParts = { rd1: rd, rd2: rd, kn1: kn, kn2: kn, vt1: 0, vt2: 0 };
+  const run = runTrials(spreadOptions, (random, sink) => {
+    // The draw order (ΔVt, Δ(W/L), RD1, RD2) is part of what a seed repeats.
     const dVt = draw(random, vtSpread);
     const dKn = draw(random, knSpread);
-    const parts: _MosParts = {
-      rd1: rd * (1 + draw(random, tolerance)),
-      rd2: rd * (1 + draw(random, tolerance)),
-      kn1: kn * (1 + dKn / 2),
-      kn2: kn * (1 - dKn / 2),
-      vt1: core.threshold + dVt / 2,
-      vt2: core.threshold - dVt / 2,
-    };
+    parts.rd1 = rd * (1 + deviation(random));
+    parts.rd2 = rd * (1 + deviation(random));
+    parts.kn1 = kn * (1 + dKn / 2);
+    parts.kn2 = kn * (1 - dKn / 2);
+    parts.vt1 = core.threshold + dVt / 2;
+    parts.vt2 = core.threshold - dVt / 2;
     _mosTrial(core, current, inputCommonMode, parts, sink);
-    cmrrDb[i] = sink.cmrrDb;
-    offset[i] = sink.offset;
-    return i;
-  }, { seed: spreadOptions.seed });
-  return summarise(cmrrDb, offset, mirror ? "singleEnded" : "differential");
+  });
+  return summarise(run, mirror ? "singleEnded" : "differential");
 }

@@ -5,8 +5,6 @@
  * @module
  */
 import { requirePositive } from "../_validate.ts";
-import { BOLTZMANN } from "../physics/constants.ts";
-import { DEFAULT_TEMPERATURE } from "../physics/constants.ts";
 
 /**
  * The slew rate a sine of peak `peak` at `frequency` demands at its zero crossing: 2π·f·V̂.
@@ -51,38 +49,5 @@ export function slewLimitedFrequency(slewRate: number, peak: number): number {
   return slewRate / (2 * Math.PI * peak);
 }
 
-/** Options for {@linkcode resistorNoiseDensity}. */
-export interface ResistorNoiseOptions {
-  /**
-   * Temperature, K.
-   * @default {300}
-   */
-  temperature?: number;
-}
-
-/**
- * Thermal (Johnson–Nyquist) noise voltage density of a resistor, √(4kTR).
- *
- * @param resistance R, Ω (≥ 0).
- * @param options Temperature.
- * @returns Noise density in V/√Hz.
- * @throws {RangeError} If `resistance` is negative or the temperature not positive.
- *
- * @example 1 kΩ at 300 K: 4.070 nV/√Hz
- * ```ts
- * import { resistorNoiseDensity } from "./slew_rate.ts";
- * import { ok } from "node:assert/strict";
- * ok(Math.abs(resistorNoiseDensity(1e3) - 4.070e-9) < 1e-12);
- * ```
- */
-export function resistorNoiseDensity(
-  resistance: number,
-  options: ResistorNoiseOptions = {},
-): number {
-  if (!(resistance >= 0) || !Number.isFinite(resistance)) {
-    throw new RangeError(`Expected resistance to be at least 0 Ω, but found ${resistance}`);
-  }
-  const temperature = options.temperature ?? DEFAULT_TEMPERATURE;
-  requirePositive("temperature", temperature, "K");
-  return Math.sqrt(4 * BOLTZMANN * temperature * resistance);
-}
+// Thermal noise lives with the physics; re-exported here so existing imports keep working.
+export { resistorNoiseDensity, type ResistorNoiseOptions } from "../physics/noise.ts";

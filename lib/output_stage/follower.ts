@@ -16,6 +16,7 @@
 import { requireFinite, requireNonNegative, requirePositive } from "../_validate.ts";
 import { DEFAULT_TEMPERATURE } from "../physics/constants.ts";
 import { thermalVoltage } from "../physics/thermal_voltage.ts";
+import { complementaryPairBeta, darlingtonBeta } from "../devices/compound_pair.ts";
 
 /** How each half of the output stage is built. */
 export type OutputDeviceKind = "single" | "darlington" | "feedbackPair";
@@ -59,8 +60,8 @@ export function compoundCurrentGain(
   if (kind === "single") return b2;
   const b1 = options.driverBeta ?? 100;
   requirePositive("driverBeta", b1);
-  if (kind === "darlington") return b1 * b2 + b1 + b2;
-  if (kind === "feedbackPair") return b1 * (1 + b2);
+  if (kind === "darlington") return darlingtonBeta(b1, b2);
+  if (kind === "feedbackPair") return complementaryPairBeta(b1, b2);
   throw new TypeError(
     `Expected kind to be "single", "darlington" or "feedbackPair", but found ${String(kind)}`,
   );

@@ -7,3 +7,4 @@
 export * from "./constants.ts";
 export * from "./thermal_voltage.ts";
 export * from "./junction.ts";
+export * from "./noise.ts";

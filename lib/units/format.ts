@@ -17,8 +17,21 @@ const PREFIXES: ReadonlyArray<readonly [number, string]> = [
   [1e-15, "f"],
 ];
 
+/**
+ * Trade units: what designers write instead of the SI unit, with their size in that SI unit
+ * (a slew rate reads "19.9 V/µs" on every datasheet, not "19.9 MV/s"). Values in a trade
+ * unit are printed as plain numbers, never with a prefix. Design checks can report in one
+ * through their `displayUnit` option.
+ */
+export const TRADE_UNITS: Readonly<Record<string, { siUnit: string; size: number }>> = {
+  "V/µs": { siUnit: "V/s", size: 1e6 },
+};
+
 /** Units that are printed as they are, never with an SI prefix. */
-const UNPREFIXED = new Set(["dB", "%", "°", "°C", "K/W", "ratio", ""]);
+const UNPREFIXED = new Set(["dB", "%", "°", "°C", "K/W", "ratio", "", ...Object.keys(TRADE_UNITS)]);
+
+/** Units that name a pure number: printed without any unit text. */
+const UNITLESS = new Set(["", "ratio"]);
 
 /** Options for {@linkcode formatSi}. */
 export interface FormatOptions {
@@ -33,7 +46,8 @@ export interface FormatOptions {
  * Formats a quantity in engineering notation with an SI prefix: `4700, "Ω"` → `"4.7 kΩ"`.
  *
  * Trailing zeros are dropped, so component values read as they are marked. Units such as
- * `dB`, `%` and `°C` are never prefixed.
+ * `dB`, `%`, `°C` and the trade units of {@linkcode TRADE_UNITS} (`V/µs`) are never
+ * prefixed; `""` and `"ratio"` (a pure number) print the number alone.
  *
  * @param value The quantity in SI base units.
  * @param unit Unit symbol, e.g. `"Ω"`, `"F"`, `"dB"`.
@@ -48,10 +62,13 @@ export interface FormatOptions {
  * equal(formatSi(100e-9, "F"), "100 nF");
  * equal(formatSi(-3.0103, "dB", { digits: 3 }), "-3.01 dB");
  * equal(formatSi(0.025852, "V"), "25.85 mV");
+ * equal(formatSi(0.40572, "ratio"), "0.4057");
+ * equal(formatSi(19.94, "V/µs", { digits: 3 }), "19.9 V/µs");
  * ```
  */
 export function formatSi(value: number, unit: string, options: FormatOptions = {}): string {
   const digits = options.digits ?? 4;
+  if (UNITLESS.has(unit)) unit = "";
   const space = unit === "" || unit === "%" || unit === "°" ? "" : " ";
   if (Number.isNaN(value)) return `NaN${space}${unit}`;
   if (!Number.isFinite(value)) return `${value > 0 ? "∞" : "-∞"}${space}${unit}`;

@@ -18,7 +18,8 @@
 import { requireNonNegative, requirePositive } from "../_validate.ts";
 import { atLeast, type CheckResult } from "../checks/check.ts";
 import { loopMargins, phaseMarginEstimate } from "../cascade/loop.ts";
-import type { Complex } from "../cascade/two_port.ts";
+import type { Complex, TwoPort } from "../cascade/two_port.ts";
+import { millerVoltageStage, transconductanceStage } from "./miller_voltage_stage.ts";
 
 const TWO_PI = 2 * Math.PI;
 const RAD = 180 / Math.PI;
@@ -46,12 +47,18 @@ export interface MillerCompensationOptions {
   nullingResistance?: number;
   /** First-stage tail current in A; gives the slew rate I_tail/Cc. */
   tailCurrent?: number;
-  /** Second-stage standing current in A; gives the other slew limit I_stage2/Cc. */
+  /**
+   * Second-stage standing current in A (the current source that loads the gain device);
+   * gives the other slew limit I₂/(Cc + C2).
+   */
   secondStageCurrent?: number;
   /** Peak output amplitude in V; gives the full-power bandwidth SR/(2π·V̂). */
   outputAmplitude?: number;
   /**
-   * Feedback factor β of the loop closed around the amplifier (1/closed-loop gain).
+   * Feedback factor β of the loop closed around the amplifier (1/closed-loop gain). Below 1
+   * it also moves the right-half-plane-zero check from GBW to the loop crossover: the zero
+   * must sit at least 10× above β·GBW (REFERENCE §4.3: "for feedback amplifiers, the test is
+   * at the loop-gain crossover β·fu"; the 10× rule is [AH3] ch. 6).
    * @default {1}
    */
   feedbackFactor?: number;
@@ -123,7 +130,15 @@ export interface MillerCompensation {
   loopGainMargin: number;
   /** I_tail/Cc in V/s, when the tail current was given. */
   inputStageSlewRate?: number;
-  /** I_stage2/Cc in V/s, when the second-stage current was given. */
+  /**
+   * I₂/(Cc + C2) in V/s, when the second-stage current was given: the slew limit of the edge
+   * on which the gain device turns off and the standing current I₂ alone must charge both
+   * Cc (its far end is held by the first stage, so it acts as a capacitor to ground) and the
+   * output capacitance C2 ([SS7] ch. 13, [GHLM5] ch. 9, from memory). For an NPN
+   * common-emitter VAS with a current-source load to the positive rail this is the rising
+   * edge; for a PMOS common-source stage with a current-sink load (the two-stage CMOS op amp)
+   * the falling edge. On the other edge the gain device can pull far more than I₂.
+   */
   secondStageSlewRate?: number;
   /** The smaller of the slew limits given, in V/s. */
   slewRate?: number;
@@ -131,6 +146,16 @@ export interface MillerCompensation {
   fullPowerBandwidth?: number;
   /** A(j2πf), the full transfer function (Rz included), for sweeps and loops. */
   at(frequency: number): Complex;
+  /**
+   * The first stage as a two-port: −gm1 into R1 ‖ C1 (see {@linkcode transconductanceStage}).
+   * Cascaded with `voltageStageTwoPort` (and an open load) it reproduces `at()` exactly.
+   */
+  inputStageTwoPort: TwoPort;
+  /**
+   * The compensated voltage stage as a two-port with the Miller feedback kept exact (see
+   * {@linkcode millerVoltageStage}): R2 and C2 are inside it, so leave the cascade's load open.
+   */
+  voltageStageTwoPort: TwoPort;
   /** Phase margin, slew rate, Cc against C2, and zero placement checks. */
   checks: CheckResult[];
 }
@@ -289,6 +314,20 @@ export function millerCompensation(options: MillerCompensationOptions): MillerCo
     loopPhaseMargin: loop.phaseMargin,
     loopGainMargin: loop.gainMargin,
     at,
+    inputStageTwoPort: transconductanceStage({
+      transconductance: gm1,
+      outputResistance: r1,
+      outputCapacitance: c1,
+    }),
+    voltageStageTwoPort: millerVoltageStage({
+      transconductance: gm2,
+      outputResistance: r2,
+      outputCapacitance: c2,
+      compensationCapacitance: cc,
+      nullingResistance: rz,
+      drivingResistance: r1,
+      drivingCapacitance: c1,
+    }),
     checks: [],
   };
 
@@ -298,7 +337,8 @@ export function millerCompensation(options: MillerCompensationOptions): MillerCo
   }
   if (options.secondStageCurrent !== undefined) {
     requirePositive("secondStageCurrent", options.secondStageCurrent, "A");
-    result.secondStageSlewRate = options.secondStageCurrent / cc;
+    // The standing current charges Cc and C2 together on the edge where the device is off.
+    result.secondStageSlewRate = options.secondStageCurrent / (cc + c2);
   }
   const limits = [result.inputStageSlewRate, result.secondStageSlewRate]
     .filter((x): x is number => x !== undefined);
@@ -321,8 +361,18 @@ export function millerCompensation(options: MillerCompensationOptions): MillerCo
     atLeast("compensation capacitor (Cc ≥ 0.22·C2, [AH3] ch. 6)", cc, 0.22 * c2, { unit: "F" }),
   ];
   if (zeroInRightHalfPlane) {
-    // [AH3] ch. 6: keep the RHP zero above about 10× the unity-gain frequency.
-    checks.push(atLeast("right-half-plane zero / GBW", zeroFrequency / gainBandwidth, 10));
+    // [AH3] ch. 6: keep the RHP zero above about 10× the crossover it erodes. With feedback
+    // (β < 1) that crossover is the loop's, β·GBW, not GBW: REFERENCE §4.3, "for feedback
+    // amplifiers, the test is at the loop-gain crossover β·fu".
+    checks.push(
+      beta === 1
+        ? atLeast("right-half-plane zero / GBW", zeroFrequency / gainBandwidth, 10)
+        : atLeast(
+          "right-half-plane zero / loop crossover β·GBW",
+          zeroFrequency / (beta * gainBandwidth),
+          10,
+        ),
+    );
   }
   if (options.minimumSlewRate !== undefined) {
     requirePositive("minimumSlewRate", options.minimumSlewRate, "V/s");
@@ -332,7 +382,10 @@ export function millerCompensation(options: MillerCompensationOptions): MillerCo
       );
     }
     checks.push(
-      atLeast("slew rate", result.slewRate, options.minimumSlewRate, { unit: "V/s" }),
+      atLeast("slew rate", result.slewRate, options.minimumSlewRate, {
+        unit: "V/s",
+        displayUnit: "V/µs",
+      }),
     );
   }
   result.checks = checks;

@@ -8,3 +8,5 @@
 export * from "./common_emitter.ts";
 export * from "./common_source.ts";
 export * from "./miller_compensation.ts";
+export * from "./miller_voltage_stage.ts";
+export * from "./follower_stage.ts";

@@ -7,6 +7,7 @@ import {
   gainPhaseChart,
   harmonicSpectrumChart,
   monteCarloChart,
+  sweepChart,
   transferCurveChart,
 } from "longtail/charts";
 import { DISPLAY } from "longtail/lib/display.ts";
@@ -277,4 +278,50 @@ Deno.test("log ticks ascend, stay inside the domain and label every decade", () 
     ),
     { numRuns: 200 },
   );
+});
+
+Deno.test("monteCarloChart() never rounds a yield with failures up to 100 %", () => {
+  // 19 997 of 20 000 pass: 99.985 %, which three digits would print as "100%".
+  const values = Array.from({ length: 20_000 }, (_, i) => (i < 3 ? 1 : 10));
+  const chart = monteCarloChart(values, { requirement: { min: 5 } });
+  assert(chart.description.includes("yield 99.98% (19997 of 20000)"), chart.description);
+  // One failure in 200 000 needs six digits.
+  const tiny = monteCarloChart(Array.from({ length: 200_000 }, (_, i) => (i === 0 ? 1 : 10)), {
+    requirement: { min: 5 },
+  });
+  assert(tiny.description.includes("yield 99.999% (199999 of 200000)"), tiny.description);
+  const all = monteCarloChart([10, 11, 12], { requirement: { min: 5 } });
+  assert(all.description.includes("yield 100% (3 of 3)"), all.description);
+});
+
+Deno.test("harmonicSpectrumChart() labels harmonics under the floor '< floor', not −318 dBc", () => {
+  const chart = harmonicSpectrumChart({ amplitudes: [0, 1, 1e-16, 1e-3, 0] }, { floorDb: -120 });
+  assert(chart.description.includes("H2 < −120 dBc"), chart.description);
+  assert(chart.description.includes("H3 −60 dBc"), chart.description); // closed form 20·log10(1e-3)
+  const svg = chart.toSvg({ document });
+  assert(!/−3\d\d/.test(svg), "no absurd level printed");
+  assertEquals(svg.match(/&lt; −120/g)?.length, 2); // H2 and the zero H4 sit on the floor
+});
+
+Deno.test("sweepChart() moves apart series labels whose lines end close together", () => {
+  const rows = [1, 2, 3, 4].map((x) => ({ x, a: 10 + x, b: 10.05 + x, c: 10.1 + x, d: 0 }));
+  const chart = sweepChart(rows, {
+    x: "x",
+    y: [
+      { y: "a", label: "first" },
+      { y: "b", label: "second" },
+      { y: "c", label: "third" },
+      { y: "d", label: "flat" },
+    ],
+  });
+  const svg = chart.toSvg({ document });
+  const label =
+    /<g [^>]*font-weight="bold" transform="translate\([\d.]+,(-?[\d.]+)\)"><text [^>]*transform="translate\([\d.]+,([\d.]+)\)">(\w+)<\/text>/g;
+  const ys = new Map<string, number>();
+  for (const m of svg.matchAll(label)) ys.set(m[3], Number(m[1]) + Number(m[2]));
+  assertEquals([...ys.keys()].sort(), ["first", "flat", "second", "third"]);
+  const crowded = ["first", "second", "third"].map((n) => ys.get(n)!).sort((p, q) => p - q);
+  assert(crowded[1] - crowded[0] >= 12 && crowded[2] - crowded[1] >= 12, `${crowded}`); // 11 px text
+  // A label with room keeps its place at the end of its line.
+  assert(svg.includes('transform="translate(8,0)"><text y="0.32em" transform="translate('));
 });

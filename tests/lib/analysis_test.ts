@@ -568,3 +568,27 @@ Deno.test("sweep() returns rows over lists, linear and log ranges", () => {
   assertThrows(() => sweepValues({ start: 0, stop: 1, points: 0 }), RangeError);
   assertThrows(() => sweep([1, Number.NaN], (x) => x), TypeError);
 });
+
+Deno.test("percentiles() by selection agree with sorting, for any sample and any p", () => {
+  fc.assert(
+    fc.property(
+      fc.array(fc.double({ noNaN: true, min: -1e6, max: 1e6 }), { minLength: 1, maxLength: 300 }),
+      fc.array(fc.double({ min: 0, max: 1, noNaN: true }), { minLength: 1, maxLength: 5 }),
+      (values, ps) => {
+        const sorted = Float64Array.from(values).sort();
+        const expected = ps.map((p) => {
+          const rank = p * (sorted.length - 1);
+          const below = Math.floor(rank);
+          const above = Math.min(below + 1, sorted.length - 1);
+          const fraction = rank - below;
+          return fraction === 0
+            ? sorted[below]
+            : sorted[below] + fraction * (sorted[above] - sorted[below]);
+        });
+        const got = percentiles(values, ps);
+        return got.every((x, i) => x === expected[i] || (x === 0 && expected[i] === 0));
+      },
+    ),
+    { numRuns: 300 },
+  );
+});

@@ -1,7 +1,7 @@
 /**
  * Speed of the input pair's Monte Carlo. Issue 2 target: 100,000 trials of a long-tailed
  * pair's CMRR and offset in under 50 ms on one core. Each run includes drawing the normals,
- * the trials themselves and the percentiles (a sort of 100,000 values).
+ * the trials themselves and the percentiles (found by selection, not a full sort).
  */
 import { bjtPairMonteCarlo, mosPairMonteCarlo } from "../../lib/input_pair/mod.ts";
 

@@ -2,7 +2,7 @@
  * Tests of the long-tailed pair against REFERENCE §3.4–§3.8 and §9.4, plus invariants.
  */
 import fc from "fast-check";
-import { assert, assertClose, assertThrows } from "../_assert.ts";
+import { assert, assertClose, assertEquals, assertThrows } from "../_assert.ts";
 import { harmonics } from "../../lib/analysis/harmonics.ts";
 import { isCheck } from "../../lib/checks/check.ts";
 import {
@@ -359,6 +359,61 @@ Deno.test("bjtPairMonteCarlo() gives a median CMRR_d of 115.7 dB and a 5th perce
   assert(run.offset.every((x) => Math.abs(x) < 5e-3)); // resistor-only offsets stay within VT·ΔR/R of a few ‰
 });
 
+Deno.test("bjtPairMonteCarlo() returns each trial's single-ended CMRR, untouched by RC mismatch (§9.4)", () => {
+  const run = bjtPairMonteCarlo(exampleA(), { trials: 20_000, loadTolerance: 0.01, seed: 11 });
+  assertEquals(run.cmrrSingleEndedDb.length, 20_000);
+  const sorted = Float64Array.from(run.cmrrSingleEndedDb).sort();
+  assertClose(sorted[0], 59.71, { atol: 0.005 }); // REFERENCE §9.4 single-ended unaffected by RC mismatch / E3.4 59.71 dB
+  assertClose(sorted[sorted.length - 1], 59.71, { atol: 0.005 }); // REFERENCE §9.4 single-ended unaffected by RC mismatch / E3.4 59.71 dB
+  // With a mirror load the run's only CMRR is the single-ended one.
+  const mirrored = bjtPairMonteCarlo(
+    { ...exampleA(), load: { kind: "mirror", earlyVoltage: 50 }, earlyVoltage: 100 },
+    { trials: 200, saturationCurrentSpread: 0.05, seed: 3 },
+  );
+  assertEquals(mirrored.cmrrDefinition, "singleEnded");
+  assertEquals(Array.from(mirrored.cmrrSingleEndedDb), Array.from(mirrored.cmrrDb));
+});
+
+Deno.test("bjtPairMonteCarlo() spreads the load resistors by the chosen tolerance distribution", () => {
+  const trials = 200_000;
+  const same = bjtPairMonteCarlo(exampleA(), { trials: 5000, loadTolerance: 0.01, seed: 8 });
+  const explicit = bjtPairMonteCarlo(exampleA(), {
+    trials: 5000,
+    loadTolerance: 0.01,
+    seed: 8,
+    loadDistribution: { distribution: "gaussian3sigma" },
+  });
+  assertEquals(Array.from(explicit.cmrrDb), Array.from(same.cmrrDb)); // the default is unchanged
+  // Uniform ±1 %: δ1 − δ2 is triangular on ±2 %, so the median |ΔRC/RC| is 2ε(1 − 1/√2).
+  const uniform = bjtPairMonteCarlo(exampleA(), {
+    trials,
+    loadTolerance: 0.01,
+    seed: 21,
+    loadDistribution: { distribution: "uniform" },
+  });
+  const medianMismatch = 0.02 * (1 - Math.SQRT1_2);
+  assertClose(uniform.cmrrDbMedian, db(193509 * 0.01 / medianMismatch), { atol: 0.3 }); // REFERENCE E3.4 CMRR_d at 1 % scaled to the closed-form triangular median, ±0.3 dB per §0.2 / D
+  // Corners: the two resistors agree (infinite CMRR) or differ by 2ε (the §9.4 worst case).
+  const corners = bjtPairMonteCarlo(exampleA(), {
+    trials,
+    loadTolerance: 0.01,
+    seed: 22,
+    loadDistribution: { distribution: "corners" },
+  });
+  const finite = corners.cmrrDb.filter((x) => x < 150);
+  assertClose(finite.length / trials, 0.5, { atol: 4 * Math.sqrt(0.25 / trials) }); // closed form P = ½, 4 standard errors per REFERENCE §9.5
+  assertClose(Math.max(...finite), 99.71, { atol: 0.01 }); // REFERENCE §9.4 worst case ΔRC/RC = 2 % / D
+  assertThrows(
+    () =>
+      bjtPairMonteCarlo(exampleA(), {
+        trials: 10,
+        loadTolerance: 0.01,
+        loadDistribution: { distribution: "binned" },
+      }),
+    RangeError,
+  );
+});
+
 Deno.test("bjtPairMonteCarlo() offset spread follows σ(VOS) = VT·σ(ΔIs/Is)", () => {
   const trials = 200_000;
   const run = bjtPairMonteCarlo(exampleA(), { trials, saturationCurrentSpread: 0.05, seed: 5 });
@@ -383,8 +438,8 @@ Deno.test("the Monte Carlo fast path matches the general nodal path trial by tri
           saturationCurrent: dIs,
           beta: dBeta,
         });
-        const fast = { cmrrDb: 0, offset: 0 };
-        const general = { cmrrDb: 0, offset: 0 };
+        const fast = { cmrrDb: 0, cmrrSingleEndedDb: 0, offset: 0 };
+        const general = { cmrrDb: 0, cmrrSingleEndedDb: 0, offset: 0 };
         _bjtTrialFast(core, current, parts, fast);
         _bjtTrialGeneral(core, current, inputCommonMode, parts, general);
         // Near a perfect match the CMRR is a ratio of rounding errors: both paths must then
@@ -392,7 +447,9 @@ Deno.test("the Monte Carlo fast path matches the general nodal path trial by tri
         const cmrrAgrees = general.cmrrDb > 200
           ? fast.cmrrDb > 180
           : Math.abs(fast.cmrrDb - general.cmrrDb) <= 1e-6;
-        return cmrrAgrees &&
+        const singleEndedAgrees =
+          Math.abs(fast.cmrrSingleEndedDb - general.cmrrSingleEndedDb) <= 1e-6;
+        return cmrrAgrees && singleEndedAgrees &&
           Math.abs(fast.offset - general.offset) <= 1e-15 + 1e-9 * Math.abs(general.offset);
       },
     ),

@@ -20,6 +20,12 @@ import {
   vbeChangeForCurrentRatio,
   vbeTemperatureSlope,
 } from "../../lib/physics/mod.ts";
+import {
+  resistorNoiseDensity as physicsResistorNoise,
+  shotNoiseDensity,
+  thermalNoisePower,
+} from "../../lib/physics/noise.ts";
+import { resistorNoiseDensity as pairResistorNoise } from "../../lib/input_pair/mod.ts";
 
 Deno.test("the constants are the exact 2019 SI values and k/q matches REFERENCE §1.1", () => {
   assertEquals(BOLTZMANN, 1.380649e-23); // CODATA18: k exact
@@ -179,6 +185,34 @@ Deno.test("saturationCurrentAtTemperature() returns to its start after a round t
         });
         assertClose(back, 1e-14, { rtol: 1e-9 }); // closed form: the law composes
         assert((t1 > t0) === (there > 1e-14) || t1 === t0); // closed form: d(ln Is)/dT > 0, so Is rises with temperature
+      },
+    ),
+    { numRuns: 200 },
+  );
+});
+
+Deno.test("physics/noise gives 4kTR, √(4kTR) and √(2qI) at the REFERENCE E3.9 and E3.11 values", () => {
+  assertClose(thermalNoisePower(1), 1.6568e-20, { rtol: 1e-4 }); // REFERENCE E3.11 4kT at 300 K / [JN28], CODATA 2018
+  assertClose(physicsResistorNoise(1e3), 4.070e-9, { rtol: 1e-3 }); // REFERENCE E3.11 1 kΩ at 300 K / [JN28]
+  assertClose(physicsResistorNoise(1e3, { temperature: 290 }), 4.002e-9, { rtol: 1e-3 }); // REFERENCE E3.11 290 K / [JN28]
+  assertClose(shotNoiseDensity(5e-6), 1.266e-12, { rtol: 1e-3 }); // REFERENCE E3.9 in per input, IB = 5 µA / [Sch18]
+  assertThrows(() => thermalNoisePower(-1), RangeError);
+  assertThrows(() => shotNoiseDensity(-1e-6), RangeError);
+  assertThrows(() => physicsResistorNoise(1e3, { temperature: 0 }), RangeError);
+});
+
+Deno.test("the input pair's resistorNoiseDensity is the physics one, re-exported", () => {
+  assertEquals(pairResistorNoise, physicsResistorNoise);
+});
+
+Deno.test("thermal noise powers of series resistors add: 4kT(R1 + R2) = 4kT·R1 + 4kT·R2", () => {
+  fc.assert(
+    fc.property(
+      fc.double({ min: 0, max: 1e7, noNaN: true }),
+      fc.double({ min: 0, max: 1e7, noNaN: true }),
+      (r1, r2) => {
+        const sum = thermalNoisePower(r1) + thermalNoisePower(r2);
+        return Math.abs(thermalNoisePower(r1 + r2) - sum) <= 1e-12 * sum;
       },
     ),
     { numRuns: 200 },

@@ -10,11 +10,13 @@ import {
   commonEmitterStage,
   commonSourceStage,
   dominantPoleLoopEstimate,
+  emitterFollowerStage,
   gainBandwidthProduct,
   millerCompensation,
   type MillerCompensationOptions,
   minimumCompensationCapacitance,
   requiredSecondPoleRatio,
+  sourceFollowerStage,
 } from "../../lib/voltage_stage/mod.ts";
 
 const E41: CommonEmitterOptions = {
@@ -267,7 +269,7 @@ Deno.test("millerCompensation() gives slew rates, full-power bandwidth and a loo
     minimumSlewRate: 50e6,
   });
   assertClose(amp.inputStageSlewRate!, 100e-6 / 3e-12, { rtol: 1e-12 }); // REFERENCE §4.1 SR = I_tail/Cc / [SS7] ch. 13
-  assertClose(amp.secondStageSlewRate!, 1e-3 / 3e-12, { rtol: 1e-12 }); // REFERENCE §4.1 I_VAS/Cc / [Self6]
+  assertClose(amp.secondStageSlewRate!, 76.92e6, { rtol: 1e-3 }); // REFERENCE §4.1 slew-rate row: I_VAS charges Cc and C2, 1 mA/13 pF / [SS7] ch. 13, [GHLM5] ch. 9 (from memory)
   assertEquals(amp.slewRate, amp.inputStageSlewRate);
   assertClose(amp.fullPowerBandwidth!, amp.slewRate! / (2 * Math.PI * 10), { rtol: 1e-12 }); // closed form SR/(2πV̂)
   assertClose(amp.loopCrossoverEstimate, 5.305e6, { rtol: 1e-3 }); // REFERENCE §4.1 f_c ≈ β·fu with E4.4's fu
@@ -276,6 +278,119 @@ Deno.test("millerCompensation() gives slew rates, full-power bandwidth and a loo
   assert(amp.loopPhaseMargin > amp.phaseMargin);
   const slew = amp.checks.find((c) => c.name === "slew rate")!;
   assertEquals(slew.pass, false); // 33.3 V/µs against 50 V/µs
+  assertEquals(slew.unit, "V/µs");
+  assertClose(slew.value, 33.33, { rtol: 1e-3 }); // REFERENCE §4.1 SR = I_tail/Cc = 100 µA/3 pF, in V/µs
+  assertEquals(slew.reason, "slew rate = 33.33 V/µs is not at least 50 V/µs (short by 16.67 V/µs)");
+});
+
+Deno.test("millerCompensation() limits the second stage's slew rate by Cc and the load together", () => {
+  const light = millerCompensation({ ...E44, secondStageCurrent: 1e-3 });
+  const heavy = millerCompensation({
+    ...E44,
+    secondStageCurrent: 1e-3,
+    secondCapacitance: 100e-12,
+  });
+  assertClose(light.secondStageSlewRate!, 1e-3 / (3e-12 + 10e-12), { rtol: 1e-12 }); // closed form I₂/(Cc + C2), [SS7] ch. 13 (from memory)
+  assertClose(heavy.secondStageSlewRate!, 9.709e6, { rtol: 1e-3 }); // closed form 1 mA/103 pF, [GHLM5] ch. 9 (from memory)
+  // Ten times the load capacitance must slow the edge the standing current drives.
+  assert(heavy.secondStageSlewRate! < light.secondStageSlewRate! / 7);
+});
+
+Deno.test("millerCompensation() tests the RHP zero at β·GBW when a feedback factor is given", () => {
+  // gm2 = 5·gm1 puts the zero at 5·GBW: too close for a unity-gain loop (10× rule, [AH3] ch. 6) …
+  const weakVas = { ...E44, secondTransconductance: 5e-3, secondResistance: 200e3 };
+  const unity = millerCompensation(weakVas);
+  const unityZero = unity.checks.find((c) => c.name === "right-half-plane zero / GBW")!;
+  assertEquals(unityZero.pass, false);
+  assertClose(unityZero.value, 5.0, { rtol: 1e-9 }); // closed form ωz/ωu = gm2/gm1
+  // … but 50× above the loop crossover of a gain-of-10 loop (REFERENCE §4.3: test at β·fu).
+  const loop = millerCompensation({ ...weakVas, feedbackFactor: 0.1 });
+  const loopZero = loop.checks.find((c) =>
+    c.name === "right-half-plane zero / loop crossover β·GBW"
+  )!;
+  assertEquals(loopZero.pass, true);
+  assertClose(loopZero.value, 50.0, { rtol: 1e-9 }); // closed form ωz/(β·ωu) = gm2/(β·gm1), REFERENCE §4.3
+  assertEquals(loopZero.limit.min, 10);
+  assertEquals(loop.checks.some((c) => c.name === "right-half-plane zero / GBW"), false);
+});
+
+Deno.test("input stage + compensated VAS two-ports cascade to E4.4's poles, crossover and margin", () => {
+  const amp = millerCompensation(E44);
+  const chain = cascade({ stages: [amp.inputStageTwoPort, amp.voltageStageTwoPort] });
+  assertClose(chain.gain, 1e6, { rtol: 1e-9 }); // REFERENCE E4.4 A0 = gm1R1·gm2R2
+  // The two-pole A(s) of REFERENCE §4.1 rebuilt from E4.4's printed poles and zero.
+  const p1 = 52.96, p2 = 111.2e6, z = 530.5e6;
+  for (const f of [1, 10, 52.96, 1e3, 1e5, 1e7, 48.71e6, 111.2e6, 530.5e6, 1e9]) {
+    const g = chain.gainAt(f);
+    const expected = 1e6 * Math.hypot(1, f / z) / (Math.hypot(1, f / p1) * Math.hypot(1, f / p2));
+    assertClose(complexAbs(g), expected, { rtol: 1e-3 }); // REFERENCE E4.4 poles 52.96 Hz, 111.2 MHz, zero 530.5 MHz / [GHLM5] ch. 9
+    const phase = -Math.atan(f / z) - Math.atan(f / p1) - Math.atan(f / p2);
+    const error = Math.atan2(g.im, g.re) - phase;
+    assertClose(Math.atan2(Math.sin(error), Math.cos(error)), 0, { atol: 1e-3 }); // REFERENCE E4.4 poles and RHP zero (phase error in rad) / [GHLM5] ch. 9
+  }
+  const m = loopMargins(chain.gainAt, { minimumFrequency: 0.01, maximumFrequency: 1e12 });
+  assertClose(m.crossoverFrequency, 48.71e6, { rtol: 1e-3 }); // REFERENCE E4.4 exact crossover / D
+  assertClose(m.phaseMargin, 61.10, { rtol: 1e-3 }); // REFERENCE E4.4 exact PM / [Bode45]
+  // Pole splitting seen from the output: R2 at DC, a resistance of only (1 + C1/Cc)/gm2
+  // between the two poles (the shunt feedback through Cc).
+  assertEquals(amp.voltageStageTwoPort.outputResistance, 100e3);
+  const zout = amp.voltageStageTwoPort.at!(1e6).outputImpedance;
+  assertClose(Math.hypot(zout.re, zout.im), 133.3, { rtol: 0.02 }); // D from REFERENCE §4.1 nodal equations: Zout → (1 + C1/Cc)/gm2 between the poles
+});
+
+Deno.test("a grounded Miller capacitance misplaces the poles that the compensated VAS view keeps", () => {
+  // The same VAS as a common-emitter stage with Cc as its Cµ: constant Miller multiplication
+  // at the input and a grounded Cc at the output miss the pole splitting.
+  const amp = millerCompensation(E44);
+  const vas = commonEmitterStage({
+    collectorCurrent: 10e-3 * 0.025852, // gm2 = 10 mS at 300 K
+    beta: 1e9,
+    collectorResistance: 100e3,
+    collectorBaseCapacitance: 3e-12,
+    outputCapacitance: 10e-12,
+    drivingResistance: 1e6,
+  });
+  const approx = cascade({ stages: [amp.inputStageTwoPort, vas.twoPort] });
+  const approxMargin = loopMargins(approx.gainAt, {
+    minimumFrequency: 0.01,
+    maximumFrequency: 1e12,
+  });
+  assert(Math.abs(approxMargin.phaseMargin - 61.10) > 5);
+});
+
+Deno.test("the compensated VAS two-port cascades to millerCompensation().at() for any design", () => {
+  fc.assert(
+    fc.property(
+      fc.double({ min: 1e-4, max: 1e-2, noNaN: true }),
+      fc.double({ min: 1e5, max: 1e7, noNaN: true }),
+      fc.oneof(fc.constant(0), fc.double({ min: 1e-14, max: 5e-12, noNaN: true })),
+      fc.double({ min: 1e-3, max: 1e-1, noNaN: true }),
+      fc.double({ min: 1e4, max: 1e6, noNaN: true }),
+      fc.double({ min: 1e-12, max: 1e-10, noNaN: true }),
+      fc.double({ min: 1e-12, max: 1e-10, noNaN: true }),
+      fc.oneof(fc.constant(0), fc.double({ min: 1, max: 1e3, noNaN: true })),
+      fc.double({ min: 0, max: 10, noNaN: true }),
+      (gm1, r1, c1, gm2, r2, c2, cc, rz, decade) => {
+        const amp = millerCompensation({
+          firstTransconductance: gm1,
+          firstResistance: r1,
+          firstCapacitance: c1,
+          secondTransconductance: gm2,
+          secondResistance: r2,
+          secondCapacitance: c2,
+          compensationCapacitance: cc,
+          nullingResistance: rz,
+        });
+        const chain = cascade({ stages: [amp.inputStageTwoPort, amp.voltageStageTwoPort] });
+        const f = 10 ** decade;
+        const a = amp.at(f);
+        const b = chain.gainAt(f);
+        const size = Math.hypot(a.re, a.im);
+        return Math.hypot(a.re - b.re, a.im - b.im) <= 1e-9 * size;
+      },
+    ),
+    { numRuns: 200 },
+  );
 });
 
 Deno.test("millerCompensation() checks Cc ≥ 0.22·C2 ([AH3] ch. 6) and the phase-margin requirement", () => {
@@ -386,4 +501,78 @@ Deno.test("stage functions reject non-physical input with a RangeError naming th
   assertThrows(() => millerCompensation({ ...E44, feedbackFactor: 2 }), RangeError);
   assertThrows(() => millerCompensation({ ...E44, minimumSlewRate: 1e6 }), RangeError);
   assertThrows(() => requiredSecondPoleRatio(95), RangeError);
+});
+
+// ---------------------------------------------------------------------------------------------
+// Follower buffers ([SS7] ch. 7)
+
+Deno.test("emitterFollowerStage() gives (β+1)(re + RL), ZL/(ZL + re) and Rs/(β+1) + re", () => {
+  const buffer = emitterFollowerStage({
+    collectorCurrent: 1e-3,
+    beta: 100,
+    loadResistance: 1e3,
+    drivingResistance: 10e3,
+    temperature: 300,
+  });
+  assertClose(buffer.smallSignal.emitterResistanceOfDevice, 25.596, { rtol: 1e-3 }); // REFERENCE E2.1 re = α/gm
+  assertClose(buffer.inputResistance, 101 * (25.596 + 1e3), { rtol: 1e-4 }); // [SS7] ch. 7 Rin = (β+1)(re + RL), with E2.1's re
+  assertClose(buffer.gain, 1e3 / (1e3 + 25.596), { rtol: 1e-4 }); // [SS7] ch. 7 Av = RL/(RL + re)
+  assertClose(buffer.outputResistance, 10e3 / 101 + 25.596, { rtol: 1e-4 }); // [SS7] ch. 7 Rout = Rs/(β+1) + re; REFERENCE §5.1 with RE = 0
+  assertClose(buffer.sourceGain, 1e3 / (1e3 + 25.596 + 10e3 / 101), { rtol: 1e-4 }); // REFERENCE §5.1 gain with Rs/(β+1), RE = 0
+  // 1 kΩ behind 124.6 Ω keeps only 0.889 of the open-circuit voltage: under the 0.9 rule.
+  assertEquals(buffer.checks[0].pass, false);
+});
+
+Deno.test("an emitter follower's two-port cascades to the exact source-to-load gain", () => {
+  fc.assert(
+    fc.property(
+      fc.double({ min: 1e-5, max: 1e-1, noNaN: true }),
+      fc.double({ min: 20, max: 1000, noNaN: true }),
+      fc.double({ min: 1, max: 1e6, noNaN: true }),
+      fc.double({ min: 10, max: 1e6, noNaN: true }),
+      fc.double({ min: 0, max: 1e6, noNaN: true }),
+      fc.double({ min: 5, max: 200, noNaN: true }),
+      (ic, beta, rl, rE, rs, va) => {
+        const buffer = emitterFollowerStage({
+          collectorCurrent: ic,
+          beta,
+          earlyVoltage: va,
+          emitterResistance: rE,
+          loadResistance: rl,
+          drivingResistance: rs,
+        });
+        const chain = cascade({
+          stages: [buffer.twoPort],
+          sourceResistance: rs,
+          loadResistance: rl,
+        });
+        return Math.abs(chain.gain / buffer.sourceGain - 1) <= 1e-9 && buffer.sourceGain < 1;
+      },
+    ),
+    { numRuns: 200 },
+  );
+});
+
+Deno.test("sourceFollowerStage() gives gm·RL/(1 + gm·RL) and 1/gm, and loses 1/(1 + χ) to the body", () => {
+  const plain = sourceFollowerStage({ drainCurrent: 1e-3, overdrive: 0.2, loadResistance: 1e3 });
+  assertClose(plain.smallSignal.transconductance, 10e-3, { rtol: 1e-12 }); // REFERENCE §2.2 gm = 2Id/Vov
+  assertClose(plain.gain, 10 / 11, { rtol: 1e-12 }); // [SS7] ch. 7 Av = gm·RL/(1 + gm·RL)
+  assertClose(plain.outputResistance, 100, { rtol: 1e-12 }); // [SS7] ch. 7 Rout = 1/gm
+  assertEquals(plain.inputResistance, Infinity);
+  const body = sourceFollowerStage({ drainCurrent: 1e-3, overdrive: 0.2, bodyEffectRatio: 0.2 });
+  assertClose(body.openCircuitGain, 1 / 1.2, { rtol: 1e-12 }); // [Raz2] ch. 3 unloaded gain gm/(gm + gmb)
+  assertClose(body.outputResistance, 1 / 12e-3, { rtol: 1e-12 }); // [Raz2] ch. 3 Rout = 1/(gm + gmb)
+  const chain = cascade({ stages: [body.twoPort], loadResistance: 1e3 });
+  const loaded = sourceFollowerStage({
+    drainCurrent: 1e-3,
+    overdrive: 0.2,
+    bodyEffectRatio: 0.2,
+    loadResistance: 1e3,
+    minimumGain: 0.9,
+  });
+  assertClose(chain.gain, loaded.gain, { rtol: 1e-12 }); // closed form: gm·RL/(1 + (gm + gmb)RL) both ways
+  assertClose(loaded.gain, 10 / 13, { rtol: 1e-12 }); // [Raz2] ch. 3 gm·RL/(1 + (gm + gmb)RL)
+  assertEquals(loaded.checks.find((c) => c.name === "follower gain")!.pass, false);
+  assertThrows(() => sourceFollowerStage({ drainCurrent: -1e-3, overdrive: 0.2 }), RangeError);
+  assertThrows(() => emitterFollowerStage({ collectorCurrent: 1e-3, beta: 0 }), RangeError);
 });
