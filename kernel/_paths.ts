@@ -92,7 +92,10 @@ export function basename(path: string): string {
  * ```
  */
 export function joinPath(...parts: string[]): string {
-  return parts.map((part, i) => (i === 0 ? part.replace(/[\\/]+$/, "") : part.replace(/^[\\/]+|[\\/]+$/g, "")))
+  return parts.map((
+    part,
+    i,
+  ) => (i === 0 ? part.replace(/[\\/]+$/, "") : part.replace(/^[\\/]+|[\\/]+$/g, "")))
     .filter((part, i) => part !== "" || i === 0).join("/");
 }
 

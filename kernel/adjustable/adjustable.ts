@@ -103,22 +103,40 @@ function declare(name: string, defaultValue: number, options: AdjustableOptions 
   const what = name || "the adjustable value";
   const show = (x: number) => `${x}${unit ? " " + unit : ""}`;
   if (!(min <= max)) {
-    throw new RangeError(`Expected min of ${what} to be at most max (${show(max)}), but found ${show(min)}`);
+    throw new RangeError(
+      `Expected min of ${what} to be at most max (${show(max)}), but found ${show(min)}`,
+    );
   }
-  if (!(step >= 0)) throw new RangeError(`Expected step of ${what} to be at least 0, but found ${step}`);
-  const check = (value: number, role: string) => {
+  if (!(step >= 0)) {
+    throw new RangeError(`Expected step of ${what} to be at least 0, but found ${step}`);
+  }
+  const check = (value: number, subject: string) => {
     if (!Number.isFinite(value) || value < min || value > max) {
       throw new RangeError(
-        `Expected ${role} of ${what} to be a finite number within ${show(min)} … ${show(max)}, but found ${show(value)}`,
+        `Expected ${subject} to be a finite number within ${show(min)} … ${show(max)}, but found ${
+          show(value)
+        }`,
       );
     }
   };
-  check(defaultValue, "the default");
-  const registry = (globalThis as Record<symbol, AdjustableRegistry | undefined>)[ADJUSTABLE_REGISTRY];
-  const set = name && registry && Object.hasOwn(registry.values, name) ? registry.values[name] : undefined;
+  check(defaultValue, `the default of ${what}`);
+  const registry =
+    (globalThis as Record<symbol, AdjustableRegistry | undefined>)[ADJUSTABLE_REGISTRY];
+  const set = name && registry && Object.hasOwn(registry.values, name)
+    ? registry.values[name]
+    : undefined;
   const value = set ?? defaultValue;
-  if (set !== undefined) check(set, "the value set for");
-  registry?.declared.push({ name, defaultValue, value, unit, min, max, step, label: options.label ?? name });
+  if (set !== undefined) check(set, `the value set for ${what}`);
+  registry?.declared.push({
+    name,
+    defaultValue,
+    value,
+    unit,
+    min,
+    max,
+    step,
+    label: options.label ?? name,
+  });
   return value;
 }
 

@@ -23,7 +23,24 @@ const MULTIPLIERS: Record<string, number> = {
 };
 
 /** Unit symbols that may follow a value; they do not change it. */
-const UNITS = ["ohm", "Ohm", "Hz", "Ω", "A", "V", "F", "H", "W", "S", "s", "K", "°C", "°", "dB", "%"];
+const UNITS = [
+  "ohm",
+  "Ohm",
+  "Hz",
+  "Ω",
+  "A",
+  "V",
+  "F",
+  "H",
+  "W",
+  "S",
+  "s",
+  "K",
+  "°C",
+  "°",
+  "dB",
+  "%",
+];
 
 /** Options for {@linkcode parseValue}. */
 export interface ParseValueOptions {
@@ -75,7 +92,7 @@ export function parseValue(text: string, options: ParseValueOptions = {}): numbe
 function parseBare(body: string): number | undefined {
   const plain = /^[+-]?(\d+\.?\d*|\.\d+)(e[+-]?\d+)?$/i;
   if (plain.test(body)) return Number(body);
-  const prefixed = /^([+-]?(?:\d+\.?\d*|\.\d+))([TGMkKRmuµμnpf])$/.exec(body);
+  const prefixed = /^([+-]?(?:\d+\.?\d*|\.\d+))\s?([TGMkKRmuµμnpf])$/.exec(body);
   if (prefixed) return scaled(prefixed[1], MULTIPLIERS[prefixed[2]]);
   const rkm = /^([+-]?)(\d*)([TGMkKRmuµμnpf])(\d+)$/.exec(body);
   if (rkm && (rkm[2] !== "" || rkm[3] === "R")) {

@@ -209,7 +209,9 @@ class Walker {
           else this.expression(declaration);
         }
         for (const specifier of node.specifiers ?? []) {
-          if (!node.source && specifier.local?.type === "Identifier") this.reference(specifier.local);
+          if (!node.source && specifier.local?.type === "Identifier") {
+            this.reference(specifier.local);
+          }
         }
         return;
       case "ExportAllDeclaration":
@@ -606,7 +608,9 @@ class Walker {
           const value = node[key];
           if (value === null || typeof value !== "object") continue;
           if (Array.isArray(value)) {
-            for (const child of value) if (child && typeof child.type === "string") this.type(child);
+            for (const child of value) {
+              if (child && typeof child.type === "string") this.type(child);
+            }
           } else if (typeof value.type === "string") this.type(value);
         }
     }

@@ -62,6 +62,19 @@ export function adjustableCalls(
  * @param analyses Every cell's analysis, by id.
  * @param graph The notebook's graph.
  * @returns Name → cell id.
+ *
+ * @example Two adjustable values in one cell
+ * ```ts
+ * import { analyseCell } from "./analyse_cell.ts";
+ * import { findAdjustables } from "./adjustables.ts";
+ * import { buildGraph } from "./graph.ts";
+ * import { deepEqual } from "node:assert/strict";
+ * const code = 'import { adjustable as knob } from "longtail/notebook";\n' +
+ *   "const rail = knob(30, { unit: 'V' });\nconst load = knob(8, { unit: 'Ω' });";
+ * const analyses = new Map([["c1", analyseCell(code)]]);
+ * const graph = buildGraph([{ id: "c1", analysis: analyses.get("c1")! }]);
+ * deepEqual([...findAdjustables(analyses, graph)], [["rail", "c1"], ["load", "c1"]]);
+ * ```
  */
 export function findAdjustables(
   analyses: ReadonlyMap<string, CellAnalysis>,

@@ -139,7 +139,8 @@ export function analyseCell(code: string): CellAnalysis {
     } else if (/^Export/.test(statement.type) || statement.type === "TSExportAssignment") {
       problems.push({
         kind: "export",
-        message: "Remove `export`: every top-level name of a cell is already shared with the other cells",
+        message:
+          "Remove `export`: every top-level name of a cell is already shared with the other cells",
         offset: statement.start,
       });
     } else if (statement.type === "VariableDeclaration" && statement.kind === "const") {

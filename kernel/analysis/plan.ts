@@ -19,7 +19,8 @@
  *
  * After the sandbox restarts, finished cells keep their outputs but their values are gone
  * (`held: false`); such a cell is re-run as a *restore* only if a stale cell needs it, and a
- * restore does not make its dependents stale.
+ * restore does not make its dependents stale. A cell that failed has no value to restore:
+ * its dependents stay blocked until it changes.
  *
  * @module
  */
@@ -33,7 +34,9 @@ export interface RunRecord {
   result: number;
   /** Result versions of the providers it used, by provider id. */
   seen: ReadonlyMap<string, number>;
-  /** Whether the sandbox still holds the cell's value. */
+  /** Whether the run produced a value (it did not fail and was not blocked). */
+  succeeded: boolean;
+  /** Whether the sandbox still holds that value (false after a restart). */
   held: boolean;
 }
 
@@ -75,7 +78,7 @@ export interface PlanOptions {
  * const records = new Map<string, RunRecord>();
  * for (const id of graph.order) {
  *   const seen = new Map(graph.byId.get(id)!.dependencies.map((d) => [d, 1]));
- *   records.set(id, { version: 1, result: 1, seen, held: true });
+ *   records.set(id, { version: 1, result: 1, seen, succeeded: true, held: true });
  * }
  * deepEqual(planRun(graph, versions, records), []);
  * versions.set("a", 2);
@@ -109,7 +112,8 @@ export function planRun(
     if (!stale.has(id) && !restore.has(id)) continue;
     for (const dependency of graph.byId.get(id)!.dependencies) {
       if (stale.has(dependency) || restore.has(dependency)) continue;
-      if (records.get(dependency)?.held === false) restore.add(dependency);
+      const record = records.get(dependency);
+      if (record?.succeeded && !record.held) restore.add(dependency);
     }
   }
   const steps: PlanStep[] = [];

@@ -48,7 +48,9 @@ export async function readNotebookFile(path: string): Promise<{ bytes: Uint8Arra
   } catch (error) {
     if (error instanceof Deno.errors.NotFound) throw new UnreadableError(`${path}: no such file`);
     if (error instanceof Deno.errors.IsADirectory) {
-      throw new UnreadableError(`${path} is a folder; give a notebook file (verify accepts folders)`);
+      throw new UnreadableError(
+        `${path} is a folder; give a notebook file (verify accepts folders)`,
+      );
     }
     throw new UnreadableError(`${path} cannot be read: ${(error as Error).message}`);
   }
@@ -59,7 +61,9 @@ export async function readNotebookFile(path: string): Promise<{ bytes: Uint8Arra
     const at = firstInvalidUtf8(bytes);
     const line = new TextDecoder().decode(bytes.subarray(0, at)).split("\n").length;
     throw new UnreadableError(
-      `${path} is not UTF-8 text (invalid byte 0x${bytes[at]?.toString(16).padStart(2, "0")} on line ${line}); ` +
+      `${path} is not UTF-8 text (invalid byte 0x${
+        bytes[at]?.toString(16).padStart(2, "0")
+      } on line ${line}); ` +
         "save it as UTF-8",
     );
   }
@@ -94,7 +98,11 @@ export function timeoutMs(text: string | undefined): number | undefined {
   if (text === undefined) return undefined;
   const seconds = Number(text);
   if (!(seconds > 0) || !Number.isFinite(seconds)) {
-    throw new UsageError(`Expected --timeout to be a number of seconds greater than 0, but found ${JSON.stringify(text)}`);
+    throw new UsageError(
+      `Expected --timeout to be a number of seconds greater than 0, but found ${
+        JSON.stringify(text)
+      }`,
+    );
   }
   return Math.round(seconds * 1000);
 }
@@ -108,7 +116,11 @@ export function timeoutMs(text: string | undefined): number | undefined {
  * @returns Values by name.
  * @throws {UsageError} If a setting is malformed or names no adjustable value.
  */
-export function parseSettings(settings: readonly string[], text: string, path: string): Record<string, number> {
+export function parseSettings(
+  settings: readonly string[],
+  text: string,
+  path: string,
+): Record<string, number> {
   if (settings.length === 0) return {};
   const notebook = splitNotebook(text, { fileName: basename(path) });
   const analyses = new Map(notebook.cells.map((cell, i) => [`c${i + 1}`, analyseCell(cell.code)]));
@@ -117,11 +129,19 @@ export function parseSettings(settings: readonly string[], text: string, path: s
   const values: Record<string, number> = {};
   for (const setting of settings) {
     const at = setting.indexOf("=");
-    if (at <= 0) throw new UsageError(`Expected --set name=value (e.g. --set tailCurrent=2m), but found ${JSON.stringify(setting)}`);
+    if (at <= 0) {
+      throw new UsageError(
+        `Expected --set name=value (e.g. --set tailCurrent=2m), but found ${
+          JSON.stringify(setting)
+        }`,
+      );
+    }
     const name = setting.slice(0, at).trim();
     if (!declared.has(name)) {
       const suggestion = closestName(name, declared.keys());
-      const known = declared.size > 0 ? ` (it has: ${[...declared.keys()].join(", ")})` : " (it declares none)";
+      const known = declared.size > 0
+        ? ` (it has: ${[...declared.keys()].join(", ")})`
+        : " (it declares none)";
       throw new UsageError(
         `The notebook declares no adjustable value named ${name}` +
           (suggestion ? `; did you mean ${suggestion}?` : known),

@@ -40,7 +40,8 @@ export function formatQuantity(value: number, unit: string): string {
   if (!Number.isFinite(value)) return `${value}${space}${unit}`;
   if (value === 0 || PLAIN_UNITS.has(unit)) return `${trim(value.toPrecision(4))}${space}${unit}`;
   const magnitude = Math.abs(value);
-  const [scale, prefix] = PREFIXES.find(([s]) => magnitude >= s * 0.99995) ?? PREFIXES[PREFIXES.length - 1];
+  const [scale, prefix] = PREFIXES.find(([s]) => magnitude >= s * 0.99995) ??
+    PREFIXES[PREFIXES.length - 1];
   return `${trim((value / scale).toPrecision(4))}${space}${prefix}${unit}`;
 }
 

@@ -33,7 +33,9 @@ export function printRun(io: CliIo, run: NotebookRun, relativePath: string): voi
       const ms = state.outcome ? ` · ${formatMs(state.outcome.durationMs)}` : "";
       io.out(`\n${paint(io, "green", "✓")} ${paint(io, "gray", where + ms)}\n`);
     } else if (state.status === "failed") {
-      io.out(`\n${paint(io, "red", "✗")} ${paint(io, "gray", where)} ${paint(io, "red", "failed")}\n`);
+      io.out(
+        `\n${paint(io, "red", "✗")} ${paint(io, "gray", where)} ${paint(io, "red", "failed")}\n`,
+      );
     } else if (state.status === "blocked") {
       const by = (state.blockedBy ?? []).map((id) => `cell ${numberOf.get(id)}`).join(", ");
       io.out(`\n${paint(io, "yellow", "⊘")} ${paint(io, "gray", where)} blocked: needs ${by}\n`);
@@ -42,37 +44,61 @@ export function printRun(io: CliIo, run: NotebookRun, relativePath: string): voi
     }
     for (const chunk of state.streams) {
       for (const line of chunk.text.replace(/\n$/, "").split("\n")) {
-        io.out(`  ${paint(io, "gray", "│")} ${chunk.name === "err" ? paint(io, "yellow", line) : line}\n`);
+        io.out(
+          `  ${paint(io, "gray", "│")} ${
+            chunk.name === "err" ? paint(io, "yellow", line) : line
+          }\n`,
+        );
       }
     }
     for (const adjustable of state.outcome?.adjustables ?? []) {
       const range = Number.isFinite(adjustable.min) || Number.isFinite(adjustable.max)
-        ? `, ${formatQuantity(adjustable.min, adjustable.unit)} … ${formatQuantity(adjustable.max, adjustable.unit)}`
+        ? `, ${formatQuantity(adjustable.min, adjustable.unit)} … ${
+          formatQuantity(adjustable.max, adjustable.unit)
+        }`
         : "";
-      const changed = adjustable.value !== adjustable.defaultValue ? paint(io, "yellow", " (set)") : "";
+      const changed = adjustable.value !== adjustable.defaultValue
+        ? paint(io, "yellow", " (set)")
+        : "";
       io.out(
-        `  adjustable ${adjustable.name} = ${formatQuantity(adjustable.value, adjustable.unit)}${changed}` +
-          paint(io, "gray", ` (default ${formatQuantity(adjustable.defaultValue, adjustable.unit)}${range})`) + "\n",
+        `  adjustable ${adjustable.name} = ${
+          formatQuantity(adjustable.value, adjustable.unit)
+        }${changed}` +
+          paint(
+            io,
+            "gray",
+            ` (default ${formatQuantity(adjustable.defaultValue, adjustable.unit)}${range})`,
+          ) + "\n",
       );
     }
     for (const output of state.outcome?.outputs ?? []) {
       const text = output["text/plain"] ?? "";
       for (const line of text.split("\n")) io.out(`  ${line}\n`);
-      if (output["image/svg+xml"]) io.out(paint(io, "gray", "  (chart: saved by `longtail record`)\n"));
+      if (output["image/svg+xml"]) {
+        io.out(paint(io, "gray", "  (chart: saved by `longtail record`)\n"));
+      }
     }
     if (state.error) {
       const place = state.error.line === undefined
         ? ""
-        : ` (line ${state.error.line}${state.error.column === undefined ? "" : `, column ${state.error.column}`})`;
+        : ` (line ${state.error.line}${
+          state.error.column === undefined ? "" : `, column ${state.error.column}`
+        })`;
       const problems = state.error.problems ?? [];
       if (problems.length > 0) {
         for (const problem of problems) {
-          io.out(`  ${paint(io, "red", problem.message)} ${paint(io, "gray", `(line ${problem.line}, column ${problem.column})`)}\n`);
+          io.out(
+            `  ${paint(io, "red", problem.message)} ${
+              paint(io, "gray", `(line ${problem.line}, column ${problem.column})`)
+            }\n`,
+          );
         }
       } else io.out(`  ${paint(io, "red", state.error.message)}${paint(io, "gray", place)}\n`);
     }
   }
-  for (const heading of headings) io.out(`\n${paint(io, "bold", `${"#".repeat(heading.level)} ${heading.text}`)}\n`);
+  for (const heading of headings) {
+    io.out(`\n${paint(io, "bold", `${"#".repeat(heading.level)} ${heading.text}`)}\n`);
+  }
   const checks = run.states.flatMap((state, i) =>
     (state.outcome?.checks ?? []).map((check) => ({ ...check, cell: run.cells[i].index + 1 }))
   );
@@ -117,7 +143,9 @@ export function checkTable(io: CliIo, checks: Array<CheckRecord & { cell: number
   const lines = table([["", "check", "value", "limit", "margin", "where"], ...rows]);
   return lines.map((line, i) => {
     if (i === 0) return paint(io, "gray", line);
-    return checks[i - 1].pass ? line.replace(/^✓/, paint(io, "green", "✓")) : paint(io, "red", line);
+    return checks[i - 1].pass
+      ? line.replace(/^✓/, paint(io, "green", "✓"))
+      : paint(io, "red", line);
   });
 }
 
@@ -132,7 +160,9 @@ function limitText(check: CheckRecord): string {
 
 function marginText(check: CheckRecord): string {
   if (!Number.isFinite(check.margin)) return "—";
-  const ratio = Number.isFinite(check.marginRatio) ? ` (${(check.marginRatio * 100).toFixed(0)} %)` : "";
+  const ratio = Number.isFinite(check.marginRatio)
+    ? ` (${(check.marginRatio * 100).toFixed(0)} %)`
+    : "";
   return `${formatQuantity(check.margin, check.unit)}${ratio}`;
 }
 
@@ -154,37 +184,66 @@ export function printVerdict(
 ): void {
   const passed = verdict.passed && typeProblems.length === 0;
   const failedChecks = verdict.checks.filter((check) => !check.pass);
-  const summary = `${verdict.cells} cells, ${verdict.checks.length - failedChecks.length}/${verdict.checks.length} checks passed` +
-    (verdict.notRecorded ? ", no recorded results yet" : `, ${verdict.agreed} recorded results agree`);
-  io.out(`${passed ? paint(io, "green", "✓") : paint(io, "red", "✗")} ${relativePath} ${paint(io, "gray", `— ${summary}`)}\n`);
+  const summary =
+    `${verdict.cells} cells, ${
+      verdict.checks.length - failedChecks.length
+    }/${verdict.checks.length} checks passed` +
+    (verdict.notRecorded
+      ? ", no recorded results yet"
+      : `, ${verdict.agreed} recorded results agree`);
+  io.out(
+    `${passed ? paint(io, "green", "✓") : paint(io, "red", "✗")} ${relativePath} ${
+      paint(io, "gray", `— ${summary}`)
+    }\n`,
+  );
   for (const failure of verdict.failures) {
     if (failure.status === "failed") {
       const error = failure.error;
-      const place = error?.line === undefined ? "" : ` at line ${error.line}${error.column ? `:${error.column}` : ""}`;
+      const place = error?.line === undefined
+        ? ""
+        : ` at line ${error.line}${error.column ? `:${error.column}` : ""}`;
       const problems = error?.problems ?? [];
       if (problems.length > 0) {
         for (const problem of problems) {
-          io.out(`    cell ${failure.cell} (line ${failure.line}) cannot run: ${problem.message} (line ${problem.line}:${problem.column})\n`);
+          io.out(
+            `    cell ${failure.cell} (line ${failure.line}) cannot run: ${problem.message} (line ${problem.line}:${problem.column})\n`,
+          );
         }
-      } else io.out(`    cell ${failure.cell} (line ${failure.line}) failed${place}: ${error?.message ?? "unknown error"}\n`);
+      } else {io.out(
+          `    cell ${failure.cell} (line ${failure.line}) failed${place}: ${
+            error?.message ?? "unknown error"
+          }\n`,
+        );}
     } else {
       const by = (failure.blockedBy ?? []).map((n) => `cell ${n}`).join(", ");
       io.out(`    cell ${failure.cell} (line ${failure.line}) blocked: needs ${by}\n`);
     }
   }
   for (const check of failedChecks) {
-    io.out(`    ${paint(io, "red", "check failed")} in cell ${check.cell} (line ${check.line}): ${check.reason}\n`);
+    io.out(
+      `    ${
+        paint(io, "red", "check failed")
+      } in cell ${check.cell} (line ${check.line}): ${check.reason}\n`,
+    );
   }
   for (const drift of verdict.drifts) {
     io.out(`    cell ${drift.cell} (line ${drift.line}) drifted:\n`);
     for (const item of drift.drifts) {
-      const recorded = item.recorded.includes("\n") ? `\n${indent(item.recorded, 10)}\n` : item.recorded;
+      const recorded = item.recorded.includes("\n")
+        ? `\n${indent(item.recorded, 10)}\n`
+        : item.recorded;
       const now = item.now.includes("\n") ? `\n${indent(item.now, 10)}` : item.now;
-      io.out(`      ${item.name}: recorded ${recorded}${item.recorded.includes("\n") ? "        " : ", "}now ${now}\n`);
+      io.out(
+        `      ${item.name}: recorded ${recorded}${
+          item.recorded.includes("\n") ? "        " : ", "
+        }now ${now}\n`,
+      );
     }
   }
   for (const problem of typeProblems) {
-    const where = problem.path === verdict.path ? `line ${problem.line}:${problem.column}` : `${problem.path}:${problem.line}:${problem.column}`;
+    const where = problem.path === verdict.path
+      ? `line ${problem.line}:${problem.column}`
+      : `${problem.path}:${problem.line}:${problem.column}`;
     io.out(`    type error at ${where}: ${problem.message}\n`);
   }
   if (verdict.recordedWith !== undefined) {
@@ -201,5 +260,9 @@ function indent(text: string, spaces: number): string {
 }
 
 function formatMs(ms: number): string {
-  return ms < 1 ? `${ms.toFixed(2)} ms` : ms < 1000 ? `${ms.toFixed(1)} ms` : `${(ms / 1000).toFixed(2)} s`;
+  return ms < 1
+    ? `${ms.toFixed(2)} ms`
+    : ms < 1000
+    ? `${ms.toFixed(1)} ms`
+    : `${(ms / 1000).toFixed(2)} s`;
 }

@@ -119,7 +119,10 @@ export function table(rows: string[][]): string[] {
     row.forEach((cell, i) => (widths[i] = Math.max(widths[i] ?? 0, [...cell].length)));
   }
   return rows.map((row) =>
-    row.map((cell, i) => (i === row.length - 1 ? cell : cell + " ".repeat(widths[i] - [...cell].length)))
+    row.map((
+      cell,
+      i,
+    ) => (i === row.length - 1 ? cell : cell + " ".repeat(widths[i] - [...cell].length)))
       .join("  ").trimEnd()
   );
 }

@@ -70,7 +70,9 @@ function walk(dir: string, visit: (path: string) => void): void {
   for (const entry of Deno.readDirSync(dir)) {
     const path = joinPath(dir, entry.name);
     if (entry.isDirectory) {
-      if (SKIP_FOLDERS.has(entry.name) || entry.name.startsWith(".") || entry.name.endsWith("_charts")) continue;
+      if (
+        SKIP_FOLDERS.has(entry.name) || entry.name.startsWith(".") || entry.name.endsWith("_charts")
+      ) continue;
       walk(path, visit);
     } else if (entry.isFile) visit(path);
   }
@@ -81,6 +83,17 @@ function walk(dir: string, visit: (path: string) => void): void {
  *
  * @param paths Files, folders and glob patterns.
  * @returns The notebooks, and a problem line for each path that gave none.
+ *
+ * @example A folder: Markdown files with cells count, others do not
+ * ```ts
+ * import { findNotebooks } from "./find_notebooks.ts";
+ * import { deepEqual } from "node:assert/strict";
+ * const dir = await Deno.makeTempDir();
+ * await Deno.writeTextFile(`${dir}/amp.md`, "~~~ts\n1\n~~~\n");
+ * await Deno.writeTextFile(`${dir}/README.md`, "# No cells here\n");
+ * deepEqual(findNotebooks([dir]), { files: [`${dir}/amp.md`], problems: [] });
+ * await Deno.remove(dir, { recursive: true });
+ * ```
  */
 export function findNotebooks(paths: readonly string[]): FoundNotebooks {
   const files = new Set<string>();
@@ -96,7 +109,10 @@ export function findNotebooks(paths: readonly string[]): FoundNotebooks {
         const root = absolutePath(base);
         walk(root, (path) => {
           const relative = path.slice(root.length + 1);
-          if (pattern.test(relative)) files.add(path);
+          // A pattern picks notebooks: Markdown files without cells are left out.
+          if (pattern.test(relative) && (!/\.(md|markdown)$/i.test(path) || hasCells(path))) {
+            files.add(path);
+          }
         });
       } catch (error) {
         problems.push(`${raw}: ${(error as Error).message}`);
@@ -111,7 +127,9 @@ export function findNotebooks(paths: readonly string[]): FoundNotebooks {
       info = Deno.statSync(path);
     } catch (error) {
       problems.push(
-        error instanceof Deno.errors.NotFound ? `${raw}: no such file or folder` : `${raw}: ${(error as Error).message}`,
+        error instanceof Deno.errors.NotFound
+          ? `${raw}: no such file or folder`
+          : `${raw}: ${(error as Error).message}`,
       );
       continue;
     }
@@ -125,7 +143,9 @@ export function findNotebooks(paths: readonly string[]): FoundNotebooks {
         problems.push(`${raw}: ${(error as Error).message}`);
         continue;
       }
-      if (files.size === before) problems.push(`${raw}: no notebooks (Markdown files with \`ts\` cells) in this folder`);
+      if (files.size === before) {
+        problems.push(`${raw}: no notebooks (Markdown files with \`ts\` cells) in this folder`);
+      }
     } else files.add(path);
   }
   return { files: [...files].sort(), problems };

@@ -40,19 +40,27 @@ export function junitXml(suite: string, cases: readonly JunitCase[]): string {
   const lines = [
     `<?xml version="1.0" encoding="UTF-8"?>`,
     `<testsuites>`,
-    `  <testsuite name="${xml(suite)}" tests="${cases.length}" failures="${failures}" errors="${errors}" time="${
+    `  <testsuite name="${
+      xml(suite)
+    }" tests="${cases.length}" failures="${failures}" errors="${errors}" time="${
       total.toFixed(3)
     }">`,
   ];
   for (const c of cases) {
-    const open = `    <testcase classname="${xml(suite)}" name="${xml(c.name)}" time="${c.seconds.toFixed(3)}"`;
+    const open = `    <testcase classname="${xml(suite)}" name="${xml(c.name)}" time="${
+      c.seconds.toFixed(3)
+    }"`;
     if (c.failure === undefined) {
       lines.push(`${open}/>`);
       continue;
     }
     const tag = c.error ? "error" : "failure";
     const first = c.failure.split("\n")[0];
-    lines.push(`${open}>`, `      <${tag} message="${xml(first)}">${xml(c.failure)}</${tag}>`, `    </testcase>`);
+    lines.push(
+      `${open}>`,
+      `      <${tag} message="${xml(first)}">${xml(c.failure)}</${tag}>`,
+      `    </testcase>`,
+    );
   }
   lines.push(`  </testsuite>`, `</testsuites>`, ``);
   return lines.join("\n");

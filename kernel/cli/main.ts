@@ -73,6 +73,15 @@ async function demoCommand(args: string[], io: CliIo): Promise<number> {
  * @param args Command-line arguments.
  * @param io Where to print.
  * @returns The exit status: 0 good, 1 something failed, 2 bad usage or unreadable input.
+ *
+ * @example An unknown command is a usage error
+ * ```ts
+ * import { main } from "./main.ts";
+ * import { bufferIo } from "./_terminal.ts";
+ * import { equal } from "node:assert/strict";
+ * equal(await main(["--version"], bufferIo().io), 0);
+ * equal(await main(["frobnicate"], bufferIo().io), 2);
+ * ```
  */
 export async function main(args: string[], io: CliIo): Promise<number> {
   const [name, ...rest] = args;
@@ -86,7 +95,11 @@ export async function main(args: string[], io: CliIo): Promise<number> {
   }
   const command = COMMANDS[name];
   if (!command) {
-    io.err(`longtail: there is no command ${JSON.stringify(name)}; the commands are run, record, verify, render, demo\n`);
+    io.err(
+      `longtail: there is no command ${
+        JSON.stringify(name)
+      }; the commands are run, record, verify, render, demo\n`,
+    );
     return 2;
   }
   try {
@@ -94,7 +107,9 @@ export async function main(args: string[], io: CliIo): Promise<number> {
   } catch (error) {
     const code = (error as { code?: string }).code ?? "";
     if (error instanceof UsageError || code.startsWith("ERR_PARSE_ARGS")) {
-      io.err(`longtail ${name}: ${(error as Error).message}\nRun longtail ${name} --help for usage.\n`);
+      io.err(
+        `longtail ${name}: ${(error as Error).message}\nRun longtail ${name} --help for usage.\n`,
+      );
       return 2;
     }
     if (error instanceof UnreadableError) {

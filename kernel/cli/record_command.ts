@@ -9,7 +9,13 @@ import { NotebookChangedError, recordNotebook } from "../record/record_notebook.
 import { runNotebook } from "../session/run_notebook.ts";
 import { absolutePath } from "../_paths.ts";
 import { LONGTAIL_VERSION } from "../version.ts";
-import { parseSettings, readNotebookFile, relativeToCwd, timeoutMs, UsageError } from "./_common.ts";
+import {
+  parseSettings,
+  readNotebookFile,
+  relativeToCwd,
+  timeoutMs,
+  UsageError,
+} from "./_common.ts";
 import { printRun } from "./_report.ts";
 import { type CliIo, paint } from "./_terminal.ts";
 
@@ -39,6 +45,16 @@ meanwhile), 2 bad usage or unreadable notebook.
  * @param args Arguments after `record`.
  * @param io Where to print.
  * @returns The exit status.
+ *
+ * @example Help
+ * ```ts
+ * import { recordCommand } from "./record_command.ts";
+ * import { bufferIo } from "./_terminal.ts";
+ * import { equal, match } from "node:assert/strict";
+ * const { io, output } = bufferIo();
+ * equal(await recordCommand(["--help"], io), 0);
+ * match(output(), /^Usage: longtail record/);
+ * ```
  */
 export async function recordCommand(args: string[], io: CliIo): Promise<number> {
   const { values, positionals } = parseArgs({
@@ -57,7 +73,9 @@ export async function recordCommand(args: string[], io: CliIo): Promise<number> 
     io.out(RECORD_HELP);
     return 0;
   }
-  if (positionals.length !== 1) throw new UsageError("Expected one notebook file, e.g. longtail record design.md");
+  if (positionals.length !== 1) {
+    throw new UsageError("Expected one notebook file, e.g. longtail record design.md");
+  }
   const path = absolutePath(positionals[0]);
   const { bytes, text } = await readNotebookFile(path);
   const settings = parseSettings(values.set ?? [], text, path);
@@ -70,8 +88,10 @@ export async function recordCommand(args: string[], io: CliIo): Promise<number> 
   if (!values.quiet) printRun(io, run, name);
   const unfinished = run.states.filter((state) => state.status !== "done").length;
   if (unfinished > 0 && !values.force) {
-    io.err(paint(io, "red", `Not recorded: ${unfinished} cell(s) of ${name} did not finish. `) +
-      "Fix them, or record anyway with --force.\n");
+    io.err(
+      paint(io, "red", `Not recorded: ${unfinished} cell(s) of ${name} did not finish. `) +
+        "Fix them, or record anyway with --force.\n",
+    );
     return 1;
   }
   try {

@@ -7,7 +7,13 @@
 import { parseArgs } from "node:util";
 import { runNotebook } from "../session/run_notebook.ts";
 import { absolutePath } from "../_paths.ts";
-import { parseSettings, readNotebookFile, relativeToCwd, timeoutMs, UsageError } from "./_common.ts";
+import {
+  parseSettings,
+  readNotebookFile,
+  relativeToCwd,
+  timeoutMs,
+  UsageError,
+} from "./_common.ts";
 import { printRun } from "./_report.ts";
 import type { CliIo } from "./_terminal.ts";
 
@@ -35,6 +41,16 @@ unreadable notebook.
  * @param args Arguments after `run`.
  * @param io Where to print.
  * @returns The exit status.
+ *
+ * @example Help
+ * ```ts
+ * import { runCommand } from "./run_command.ts";
+ * import { bufferIo } from "./_terminal.ts";
+ * import { equal, match } from "node:assert/strict";
+ * const { io, output } = bufferIo();
+ * equal(await runCommand(["--help"], io), 0);
+ * match(output(), /^Usage: longtail run/);
+ * ```
  */
 export async function runCommand(args: string[], io: CliIo): Promise<number> {
   const { values, positionals } = parseArgs({
@@ -51,7 +67,9 @@ export async function runCommand(args: string[], io: CliIo): Promise<number> {
     io.out(RUN_HELP);
     return 0;
   }
-  if (positionals.length !== 1) throw new UsageError("Expected one notebook file, e.g. longtail run design.md");
+  if (positionals.length !== 1) {
+    throw new UsageError("Expected one notebook file, e.g. longtail run design.md");
+  }
   const path = absolutePath(positionals[0]);
   const { text } = await readNotebookFile(path);
   const settings = parseSettings(values.set ?? [], text, path);

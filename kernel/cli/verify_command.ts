@@ -8,14 +8,24 @@
 import { parseArgs } from "node:util";
 import { analyseCell } from "../analysis/analyse_cell.ts";
 import { buildGraph } from "../analysis/graph.ts";
-import { type TypeCheckResult, type TypeCheckTarget, typeCheckNotebooks } from "../compile/type_check.ts";
+import {
+  typeCheckNotebooks,
+  type TypeCheckResult,
+  type TypeCheckTarget,
+} from "../compile/type_check.ts";
 import { splitNotebook } from "../notebook/split.ts";
 import { DEFAULT_RTOL } from "../record/compare.ts";
 import { type NotebookVerdict, verifyRun } from "../record/verify_notebook.ts";
 import { runNotebook } from "../session/run_notebook.ts";
 import { absolutePath, basename } from "../_paths.ts";
 import { LONGTAIL_VERSION } from "../version.ts";
-import { readNotebookFile, relativeToCwd, timeoutMs, UnreadableError, UsageError } from "./_common.ts";
+import {
+  readNotebookFile,
+  relativeToCwd,
+  timeoutMs,
+  UnreadableError,
+  UsageError,
+} from "./_common.ts";
 import { printVerdict } from "./_report.ts";
 import { findNotebooks, pickShard } from "./find_notebooks.ts";
 import { type JunitCase, junitXml } from "./junit.ts";
@@ -57,6 +67,16 @@ interface Entry {
  * @param args Arguments after `verify`.
  * @param io Where to print.
  * @returns The exit status.
+ *
+ * @example Help
+ * ```ts
+ * import { verifyCommand } from "./verify_command.ts";
+ * import { bufferIo } from "./_terminal.ts";
+ * import { equal, match } from "node:assert/strict";
+ * const { io, output } = bufferIo();
+ * equal(await verifyCommand(["--help"], io), 0);
+ * match(output(), /^Usage: longtail verify/);
+ * ```
  */
 export async function verifyCommand(args: string[], io: CliIo): Promise<number> {
   const startedAt = performance.now();
@@ -78,10 +98,16 @@ export async function verifyCommand(args: string[], io: CliIo): Promise<number> 
     io.out(VERIFY_HELP);
     return 0;
   }
-  if (positionals.length === 0) throw new UsageError("Expected notebook files, folders or patterns, e.g. longtail verify notebooks/");
+  if (positionals.length === 0) {
+    throw new UsageError(
+      "Expected notebook files, folders or patterns, e.g. longtail verify notebooks/",
+    );
+  }
   const rtol = values.rtol === undefined ? DEFAULT_RTOL : Number(values.rtol);
   if (!(rtol >= 0) || !Number.isFinite(rtol)) {
-    throw new UsageError(`Expected --rtol to be a number of at least 0, but found ${JSON.stringify(values.rtol)}`);
+    throw new UsageError(
+      `Expected --rtol to be a number of at least 0, but found ${JSON.stringify(values.rtol)}`,
+    );
   }
   const shard = parseShard(values.shard);
   const cellTimeoutMs = timeoutMs(values.timeout);
@@ -92,7 +118,13 @@ export async function verifyCommand(args: string[], io: CliIo): Promise<number> 
   for (const problem of found.problems) io.err(paint(io, "red", `${problem}\n`));
   const files = shard ? pickShard(found.files, shard) : found.files;
   if (files.length === 0 && !usageTrouble) {
-    io.err(paint(io, "red", shard ? `Shard ${shard.index}/${shard.count} has no notebooks\n` : "No notebooks found\n"));
+    io.err(
+      paint(
+        io,
+        "red",
+        shard ? `Shard ${shard.index}/${shard.count} has no notebooks\n` : "No notebooks found\n",
+      ),
+    );
     return shard ? 0 : 2;
   }
 
@@ -124,7 +156,9 @@ export async function verifyCommand(args: string[], io: CliIo): Promise<number> 
     done++;
     const text = texts.get(entry.path);
     if (text === undefined) continue;
-    if (io.progress) io.err(`\r\x1b[2K[${done}/${entries.length}] verifying ${relativeToCwd(entry.path)} …`);
+    if (io.progress) {
+      io.err(`\r\x1b[2K[${done}/${entries.length}] verifying ${relativeToCwd(entry.path)} …`);
+    }
     const started = performance.now();
     const run = await runNotebook(entry.path, text, { cellTimeoutMs, allowRead });
     entry.verdict = verifyRun(run, { rtol });
@@ -153,11 +187,21 @@ export async function verifyCommand(args: string[], io: CliIo): Promise<number> 
     const ok = verdict.passed && typeProblems.length === 0;
     if (ok) passed++;
     else failed++;
-    junit.push({ name, seconds: entry.seconds, failure: ok ? undefined : failureText(verdict, typeProblems.length) });
+    junit.push({
+      name,
+      seconds: entry.seconds,
+      failure: ok ? undefined : failureText(verdict, typeProblems.length),
+    });
   }
   const outside = checked.problems.filter((problem) => !known.has(problem.path));
   for (const problem of outside) {
-    io.out(paint(io, "red", `type error in ${problem.path}:${problem.line}:${problem.column}: ${problem.message}\n`));
+    io.out(
+      paint(
+        io,
+        "red",
+        `type error in ${problem.path}:${problem.line}:${problem.column}: ${problem.message}\n`,
+      ),
+    );
   }
   for (const text of checked.unplaced) io.out(paint(io, "red", `type check: ${text}\n`));
   if (values.junit) {
@@ -169,7 +213,9 @@ export async function verifyCommand(args: string[], io: CliIo): Promise<number> 
       io,
       "gray",
       `timing: start-up ${startedAt.toFixed(0)} ms, analysis ${analysisMs.toFixed(0)} ms, ` +
-        `runs ${runMs.toFixed(0)} ms, type check ${checked.ms.toFixed(0)} ms (alongside the runs), ` +
+        `runs ${runMs.toFixed(0)} ms, type check ${
+          checked.ms.toFixed(0)
+        } ms (alongside the runs), ` +
         `verify ${total.toFixed(0)} ms\n`,
     ));
   }
@@ -184,7 +230,9 @@ function parseShard(text: string | undefined): { index: number; count: number } 
   const index = Number(match?.[1]);
   const count = Number(match?.[2]);
   if (!match || count < 1 || index < 1 || index > count) {
-    throw new UsageError(`Expected --shard I/N with 1 ≤ I ≤ N (e.g. 2/4), but found ${JSON.stringify(text)}`);
+    throw new UsageError(
+      `Expected --shard I/N with 1 ≤ I ≤ N (e.g. 2/4), but found ${JSON.stringify(text)}`,
+    );
   }
   return { index, count };
 }
@@ -207,13 +255,19 @@ function typeCheckTarget(path: string, text: string): TypeCheckTarget {
 function failureText(verdict: NotebookVerdict, typeErrors: number): string {
   const parts: string[] = [];
   for (const failure of verdict.failures) {
-    parts.push(`cell ${failure.cell} (line ${failure.line}) ${failure.status}` +
-      (failure.error ? `: ${failure.error.message}` : ""));
+    parts.push(
+      `cell ${failure.cell} (line ${failure.line}) ${failure.status}` +
+        (failure.error ? `: ${failure.error.message}` : ""),
+    );
   }
-  for (const check of verdict.checks.filter((c) => !c.pass)) parts.push(`check failed in cell ${check.cell}: ${check.reason}`);
+  for (const check of verdict.checks.filter((c) => !c.pass)) {
+    parts.push(`check failed in cell ${check.cell}: ${check.reason}`);
+  }
   for (const drift of verdict.drifts) {
     for (const item of drift.drifts) {
-      parts.push(`cell ${drift.cell} (line ${drift.line}) drifted: ${item.name}: recorded ${item.recorded}, now ${item.now}`);
+      parts.push(
+        `cell ${drift.cell} (line ${drift.line}) drifted: ${item.name}: recorded ${item.recorded}, now ${item.now}`,
+      );
     }
   }
   if (typeErrors > 0) parts.push(`${typeErrors} type error(s)`);

@@ -87,7 +87,11 @@ export function checkModule(
   }
   body += code.slice(at);
   const exports: string[] = [];
-  if (options.exportValues.length > 0) exports.push(`export { ${options.exportValues.join(", ")} };`);
-  if (options.exportTypes.length > 0) exports.push(`export type { ${options.exportTypes.join(", ")} };`);
+  if (options.exportValues.length > 0) {
+    exports.push(`export { ${options.exportValues.join(", ")} };`);
+  }
+  if (options.exportTypes.length > 0) {
+    exports.push(`export type { ${options.exportTypes.join(", ")} };`);
+  }
   return `${head}\n${body}${body.endsWith("\n") ? "" : "\n"}\n${exports.join(" ")}\n`;
 }

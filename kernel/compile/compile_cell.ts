@@ -48,12 +48,58 @@ export interface CompiledCell {
   names: string[];
   /** Lines of the module before the cell's first line. */
   lineOffset: number;
+  /**
+   * Text the compiler inserted into the cell's lines, as `[line, column, length]` (0-based
+   * code line and column), so a module column can be turned back into the cell's column.
+   */
+  insertions: Array<[number, number, number]>;
+}
+
+/**
+ * Turns a 1-based line and column of a compiled module into the cell's 0-based line and
+ * 1-based column.
+ *
+ * @param compiled The compiled cell.
+ * @param line Module line.
+ * @param column Module column.
+ * @returns The cell's line index and column, or undefined for the module's own first line.
+ *
+ * @example The shown value's line is shifted by the inserted capture
+ * ```ts
+ * import { analyseCell } from "../analysis/analyse_cell.ts";
+ * import { cellPosition, compileCell } from "./compile_cell.ts";
+ * import { deepEqual } from "node:assert/strict";
+ * const code = "const a = 1;\nfail(a)";
+ * const compiled = compileCell(code, analyseCell(code), { notebookUrl: "file:///n.md", inputs: ["fail"] });
+ * const column = compiled.source.split("\n")[2].indexOf("fail(") + 1;
+ * deepEqual(cellPosition(compiled, 3, column), { lineIndex: 1, column: 1 });
+ * ```
+ */
+export function cellPosition(
+  compiled: CompiledCell,
+  line: number,
+  column: number,
+): { lineIndex: number; column: number } | undefined {
+  const lineIndex = line - 1 - compiled.lineOffset;
+  if (lineIndex < 0) return undefined;
+  let shift = 0;
+  for (const [at, from, length] of compiled.insertions) {
+    if (at === lineIndex && from + shift < column - 1) shift += length;
+  }
+  return { lineIndex, column: Math.max(1, column - shift) };
 }
 
 interface Edit {
   start: number;
   end: number;
   text: string;
+}
+
+/** Line and column (0-based) of an offset. */
+function lineAndColumn(code: string, offset: number): [number, number] {
+  const before = code.slice(0, offset);
+  const line = (before.match(/\n/g) ?? []).length;
+  return [line, offset - (before.lastIndexOf("\n") + 1)];
 }
 
 /**
@@ -106,6 +152,14 @@ export function compileCell(
     edits.push({ start: end, end, text: ")" });
   }
   const body = applyEdits(code, edits);
+  // Where the edits on a single line changed its length (blanked imports keep theirs).
+  const insertions: Array<[number, number, number]> = [];
+  for (const edit of edits) {
+    const original = code.slice(edit.start, edit.end);
+    if (original.includes("\n") || edit.text.length === original.length) continue;
+    const [line, column] = lineAndColumn(code, edit.start);
+    insertions.push([line, column, edit.text.length - original.length]);
+  }
   const names = valueNames(analysis);
   const inputs = options.inputs.length > 0
     ? `const { ${options.inputs.join(", ")} } = ${INPUTS_NAME}; `
@@ -113,10 +167,23 @@ export function compileCell(
   const head = hoisted.join(" ") +
     `export default async function (${INPUTS_NAME}, ${META_NAME}) { ${inputs}let ${VALUE_NAME};`;
   const tail = `\n;return { value: ${VALUE_NAME}, names: { ${names.join(", ")} } };\n}\n`;
-  return { source: `${head}\n${body}${tail}`, names, lineOffset: 1 };
+  return { source: `${head}\n${body}${tail}`, names, lineOffset: 1, insertions };
 }
 
-/** The cell's top-level names that exist at run time, without repeats. */
+/**
+ * The cell's top-level names that exist at run time (types left out), without repeats.
+ *
+ * @param analysis The cell's analysis.
+ * @returns The names, in source order.
+ *
+ * @example
+ * ```ts
+ * import { analyseCell } from "../analysis/analyse_cell.ts";
+ * import { valueNames } from "./compile_cell.ts";
+ * import { deepEqual } from "node:assert/strict";
+ * deepEqual(valueNames(analyseCell("type T = number; const a: T = 1; function f() {}")), ["a", "f"]);
+ * ```
+ */
 export function valueNames(analysis: CellAnalysis): string[] {
   const names = new Set<string>();
   for (const definition of analysis.defines) if (!definition.typeOnly) names.add(definition.name);

@@ -5,3 +5,4 @@
  */
 export * from "./compile_cell.ts";
 export * from "./check_module.ts";
+export * from "./type_check.ts";

@@ -82,6 +82,19 @@ export interface TypeCheckResult {
  * @param targets The notebooks.
  * @param options The checkout to check against.
  * @returns The problems placed at notebook lines.
+ *
+ * @example A string where a number belongs, in the notebook's third line
+ * ```ts
+ * import { analyseCell } from "../analysis/analyse_cell.ts";
+ * import { buildGraph } from "../analysis/graph.ts";
+ * import { typeCheckNotebooks } from "./type_check.ts";
+ * import { equal } from "node:assert/strict";
+ * const code = "const gain: number = 10;\nconst label: string = gain;\n";
+ * const cell = { id: "c1", index: 0, code, analysis: analyseCell(code), codeLine: 2, columnOffsets: [], fenceLine: 1 };
+ * const graph = buildGraph([{ id: "c1", analysis: cell.analysis }]);
+ * const result = await typeCheckNotebooks([{ path: "/tmp/amp.md", cells: [cell], graph }]);
+ * equal(result.problems[0].line, 3);
+ * ```
  */
 export async function typeCheckNotebooks(
   targets: readonly TypeCheckTarget[],
@@ -142,7 +155,9 @@ function checkModules(target: TypeCheckTarget): Map<TypeCheckCell, string> {
   // Cycles put dependents before providers in `order`; one more pass catches them.
   for (const id of graph.order) {
     const node = graph.byId.get(id)!;
-    if ([...node.inputs, ...node.typeInputs].some((input) => skipped.has(input.from))) skipped.add(id);
+    if ([...node.inputs, ...node.typeInputs].some((input) => skipped.has(input.from))) {
+      skipped.add(id);
+    }
   }
   const values = new Map<string, Set<string>>();
   const types = new Map<string, Set<string>>();
@@ -161,7 +176,9 @@ function checkModules(target: TypeCheckTarget): Map<TypeCheckCell, string> {
     if (skipped.has(cell.id)) continue;
     const node = graph.byId.get(cell.id)!;
     const exportValues = [...(values.get(cell.id) ?? [])];
-    const exportTypes = [...(types.get(cell.id) ?? [])].filter((name) => !exportValues.includes(name));
+    const exportTypes = [...(types.get(cell.id) ?? [])].filter((name) =>
+      !exportValues.includes(name)
+    );
     modules.set(
       cell,
       checkModule(cell.code, cell.analysis, {

@@ -32,7 +32,8 @@ export const RECORDED_TAG = "recorded";
 export const CHARTS_FOLDER_SUFFIX = "_charts";
 
 /** Matches the version line; group 1 is the version. */
-export const VERSION_LINE_PATTERN: RegExp = /^<!--\s*results recorded by longtail\s+(\S+)\s*-->\s*$/;
+export const VERSION_LINE_PATTERN: RegExp =
+  /^<!--\s*results recorded by longtail\s+(\S+)\s*-->\s*$/;
 
 /**
  * Whether a fence's info string makes it a cell.

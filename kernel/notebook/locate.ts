@@ -31,7 +31,11 @@ export interface CodePlace {
  * });
  * ```
  */
-export function locateInNotebook(code: string, offset: number, place: CodePlace): { line: number; column: number } {
+export function locateInNotebook(
+  code: string,
+  offset: number,
+  place: CodePlace,
+): { line: number; column: number } {
   const before = code.slice(0, Math.max(0, Math.min(offset, code.length)));
   const lineIndex = (before.match(/\r\n|\r|\n/g) ?? []).length;
   const lineStart = Math.max(before.lastIndexOf("\n"), before.lastIndexOf("\r")) + 1;

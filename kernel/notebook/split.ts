@@ -145,7 +145,11 @@ export function splitNotebook(text: string, options: SplitOptions = {}): Noteboo
     const map = token.map!;
     if (token.type === "heading_open") {
       const inline = tokens[blocks[i] + 1];
-      headings.push({ level: Number(token.tag.slice(1)), text: inline?.content ?? "", line: map[0] });
+      headings.push({
+        level: Number(token.tag.slice(1)),
+        text: inline?.content ?? "",
+        line: map[0],
+      });
     } else if (token.type === "html_block") {
       const match = VERSION_LINE_PATTERN.exec(token.content.trim());
       if (match && map[1] - map[0] === 1) version = { line: map[0], version: match[1] };
@@ -227,7 +231,9 @@ function chartLinks(inline: MarkdownToken | undefined, chartsFolder: string): st
       const src = child.attrs?.find(([name]) => name === "src")?.[1] ?? "";
       if (!decodeURI(src).startsWith(chartsFolder + "/")) return undefined;
       links.push(src);
-    } else if (child.type === "softbreak" || (child.type === "text" && child.content.trim() === "")) {
+    } else if (
+      child.type === "softbreak" || (child.type === "text" && child.content.trim() === "")
+    ) {
       continue;
     } else {
       return undefined;
@@ -255,15 +261,23 @@ export function notebookParts(notebook: Notebook): NotebookPart[] {
   const push = (kind: PartKind, startLine: number, endLine: number, cell?: number) => {
     if (endLine <= startLine) return;
     const text = notebook.lines.slice(startLine, endLine).join("");
-    parts.push(cell === undefined ? { kind, startLine, endLine, text } : { kind, startLine, endLine, cell, text });
+    parts.push(
+      cell === undefined
+        ? { kind, startLine, endLine, text }
+        : { kind, startLine, endLine, cell, text },
+    );
   };
   let line = 0;
   const marks: Array<[PartKind, number, number, number | undefined]> = [];
   for (const cell of notebook.cells) {
     marks.push(["cell", cell.startLine, cell.endLine, cell.index]);
-    if (cell.recorded) marks.push(["recorded", cell.recorded.startLine, cell.recorded.endLine, cell.index]);
+    if (cell.recorded) {
+      marks.push(["recorded", cell.recorded.startLine, cell.recorded.endLine, cell.index]);
+    }
   }
-  if (notebook.version) marks.push(["version", notebook.version.line, notebook.version.line + 1, undefined]);
+  if (notebook.version) {
+    marks.push(["version", notebook.version.line, notebook.version.line + 1, undefined]);
+  }
   marks.sort((a, b) => a[1] - b[1]);
   for (const [kind, start, end, cell] of marks) {
     push("prose", line, start);

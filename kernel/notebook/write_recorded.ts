@@ -61,7 +61,11 @@ export function writeRecorded(
   if (notebook.version) {
     const old = lines[notebook.version.line];
     const terminator = old.slice(stripTerminator(old).length);
-    edits.push({ start: notebook.version.line, end: notebook.version.line + 1, text: mark + terminator });
+    edits.push({
+      start: notebook.version.line,
+      end: notebook.version.line + 1,
+      text: mark + terminator,
+    });
   }
   edits.sort((a, b) => a.start - b.start);
   const out: string[] = [];

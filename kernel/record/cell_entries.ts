@@ -74,12 +74,21 @@ export function cellEntries(
   const entries: RecordedEntry[] = [];
   const charts: ChartFile[] = [];
   if (state.status === "done" && state.outcome) {
-    // A shown list of this cell's checks is recorded once, as check lines.
-    const checkLines = new Set(state.outcome.checks.map((c) => `${c.pass ? "✓" : "✗"} ${c.reason || c.name}`));
+    // A shown list of checks is recorded as check lines: this cell's own checks once (they
+    // follow below), checks counted on an earlier cell as they are shown here.
+    const ownLines = new Set(
+      state.outcome.checks.map((c) => `${c.pass ? "✓" : "✗"} ${c.reason || c.name}`),
+    );
     for (const output of state.outcome.outputs) {
       const text = output["text/plain"];
-      const onlyChecks = text !== undefined && text.split("\n").every((line) => checkLines.has(line));
-      if (text !== undefined && text !== "" && !onlyChecks) entries.push({ kind: "text", text });
+      const lines = text?.split("\n") ?? [];
+      if (text !== undefined && text !== "" && lines.every((line) => /^[✓✗] /.test(line))) {
+        for (const line of lines) {
+          if (!ownLines.has(line)) {
+            entries.push({ kind: "check", pass: line.startsWith("✓"), text: line.slice(2) });
+          }
+        }
+      } else if (text !== undefined && text !== "") entries.push({ kind: "text", text });
       const svg = output["image/svg+xml"];
       if (svg !== undefined) {
         const k = charts.length + 1;
@@ -98,7 +107,10 @@ export function cellEntries(
     }
   } else if (state.status === "failed" && state.error) {
     const where = state.error.line === undefined ? "" : ` (line ${state.error.line})`;
-    entries.push({ kind: "problem", text: `failed: ${state.error.message.split("\n")[0]}${where}` });
+    entries.push({
+      kind: "problem",
+      text: `failed: ${state.error.message.split("\n")[0]}${where}`,
+    });
   } else if (state.status === "blocked") {
     const by = (state.blockedBy ?? []).map(label).join(", ");
     entries.push({ kind: "problem", text: `blocked: needs ${by}, which did not finish` });

@@ -51,7 +51,9 @@ const NUMBER = /[-+]?(?:\d+\.?\d*|\.\d+)(?:e[-+]?\d+)?/gi;
  * ```
  */
 export function numbersAgree(recorded: number, now: number, rtol: number): boolean {
-  if (Number.isNaN(recorded) || Number.isNaN(now)) return Number.isNaN(recorded) && Number.isNaN(now);
+  if (Number.isNaN(recorded) || Number.isNaN(now)) {
+    return Number.isNaN(recorded) && Number.isNaN(now);
+  }
   if (!Number.isFinite(recorded) || !Number.isFinite(now)) return recorded === now;
   return Math.abs(recorded - now) <= rtol * Math.max(Math.abs(recorded), Math.abs(now));
 }
@@ -133,11 +135,17 @@ export function compareEntries(
     if (current === undefined) {
       drifts.push({ name, recorded: formatRecordedNumber(value), now: "(missing)" });
     } else if (!numbersAgree(value, current, rtol)) {
-      drifts.push({ name, recorded: formatRecordedNumber(value), now: formatRecordedNumber(current) });
+      drifts.push({
+        name,
+        recorded: formatRecordedNumber(value),
+        now: formatRecordedNumber(current),
+      });
     }
   }
   for (const [name, value] of after) {
-    if (!before.has(name)) drifts.push({ name, recorded: "(not recorded)", now: formatRecordedNumber(value) });
+    if (!before.has(name)) {
+      drifts.push({ name, recorded: "(not recorded)", now: formatRecordedNumber(value) });
+    }
   }
   const checks = (entries: readonly RecordedEntry[]) =>
     entries.flatMap((e) => (e.kind === "check" ? [`${e.pass ? "✓" : "✗"} ${e.text}`] : []));

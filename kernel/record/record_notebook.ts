@@ -7,7 +7,7 @@
  *
  * @module
  */
-import { writeRecorded, type CellRecord } from "../notebook/write_recorded.ts";
+import { type CellRecord, writeRecorded } from "../notebook/write_recorded.ts";
 import type { NotebookRun } from "../session/run_notebook.ts";
 import { dirname, joinPath } from "../_paths.ts";
 import { LONGTAIL_VERSION } from "../version.ts";
@@ -26,9 +26,20 @@ export interface RecordOutcome {
   removed: string[];
 }
 
-/** Thrown when the notebook changed on disk between reading and writing. */
+/**
+ * Thrown when the notebook changed on disk between reading and writing.
+ *
+ * @example
+ * ```ts
+ * import { NotebookChangedError } from "./record_notebook.ts";
+ * import { match } from "node:assert/strict";
+ * match(new NotebookChangedError("amp.md").message, /amp\.md changed on disk/);
+ * ```
+ */
 export class NotebookChangedError extends Error {
   /**
+   * Creates the error.
+   *
    * @param path The notebook.
    */
   constructor(path: string) {
@@ -42,8 +53,24 @@ export class NotebookChangedError extends Error {
  *
  * @param run A finished run.
  * @returns One record per cell index, with its charts.
+ *
+ * @example
+ * ```ts
+ * import { runNotebook } from "../session/run_notebook.ts";
+ * import { recordsOf } from "./record_notebook.ts";
+ * import { deepEqual } from "node:assert/strict";
+ * const dir = await Deno.makeTempDir();
+ * const run = await runNotebook(`${dir}/amp.md`, "~~~ts\nconst gain = 20;\ngain * 2\n~~~\n");
+ * deepEqual(recordsOf(run)[0].entries, [
+ *   { kind: "text", text: "40" },
+ *   { kind: "number", name: "gain", value: 20 },
+ * ]);
+ * await Deno.remove(dir, { recursive: true });
+ * ```
  */
-export function recordsOf(run: NotebookRun): Array<CellRecord & { chartFiles: Array<{ path: string; svg: string }> }> {
+export function recordsOf(
+  run: NotebookRun,
+): Array<CellRecord & { chartFiles: Array<{ path: string; svg: string }> }> {
   const numberOf = new Map(run.cells.map((cell) => [cell.id, cell.index + 1]));
   return run.cells.map((cell, i) => {
     const { entries, charts } = cellEntries(run.states[i], cell.index + 1, {
@@ -65,8 +92,26 @@ export function recordsOf(run: NotebookRun): Array<CellRecord & { chartFiles: Ar
  * @param originalBytes The notebook's bytes as read before the run.
  * @returns What was written.
  * @throws {NotebookChangedError} If the file changed on disk since it was read.
+ *
+ * @example Run, then record
+ * ```ts
+ * import { runNotebook } from "../session/run_notebook.ts";
+ * import { recordNotebook } from "./record_notebook.ts";
+ * import { match } from "node:assert/strict";
+ * const dir = await Deno.makeTempDir();
+ * const path = `${dir}/amp.md`;
+ * await Deno.writeTextFile(path, "~~~ts\n2 * 21\n~~~\n");
+ * const bytes = await Deno.readFile(path);
+ * await recordNotebook(await runNotebook(path, new TextDecoder().decode(bytes)), bytes);
+ * const fence = "`".repeat(3);
+ * match(await Deno.readTextFile(path), new RegExp(`~~~\n\n${fence}recorded\n42\n${fence}\n`));
+ * await Deno.remove(dir, { recursive: true });
+ * ```
  */
-export async function recordNotebook(run: NotebookRun, originalBytes: Uint8Array): Promise<RecordOutcome> {
+export async function recordNotebook(
+  run: NotebookRun,
+  originalBytes: Uint8Array,
+): Promise<RecordOutcome> {
   const records = recordsOf(run);
   const text = writeRecorded(run.notebook, records, LONGTAIL_VERSION);
   const current = await Deno.readFile(run.path);
@@ -99,7 +144,8 @@ export async function recordNotebook(run: NotebookRun, originalBytes: Uint8Array
   await writeFileAtomic(run.path, text);
   return {
     text,
-    recordedCells: records.filter((r) => r.entries.length > 0 || (r.charts?.length ?? 0) > 0).length,
+    recordedCells:
+      records.filter((r) => r.entries.length > 0 || (r.charts?.length ?? 0) > 0).length,
     charts: written,
     removed,
   };

@@ -82,6 +82,20 @@ export interface VerifyOptions {
  * @param run The run.
  * @param options Tolerance.
  * @returns The verdict.
+ *
+ * @example A recorded value that changed
+ * ```ts
+ * import { runNotebook } from "../session/run_notebook.ts";
+ * import { verifyRun } from "./verify_notebook.ts";
+ * import { deepEqual, equal } from "node:assert/strict";
+ * const dir = await Deno.makeTempDir();
+ * const fence = "`".repeat(3);
+ * const text = `~~~ts\nconst r1 = 5100;\n~~~\n\n${fence}recorded\n· r1 = 4700\n${fence}\n`;
+ * const verdict = verifyRun(await runNotebook(`${dir}/amp.md`, text));
+ * equal(verdict.passed, false);
+ * deepEqual(verdict.drifts[0].drifts, [{ name: "r1", recorded: "4700", now: "5100" }]);
+ * await Deno.remove(dir, { recursive: true });
+ * ```
  */
 export function verifyRun(run: NotebookRun, options: VerifyOptions = {}): NotebookVerdict {
   const numberOf = new Map(run.cells.map((cell) => [cell.id, cell.index + 1]));
@@ -95,7 +109,9 @@ export function verifyRun(run: NotebookRun, options: VerifyOptions = {}): Notebo
     const state = run.states[i];
     const number = cell.index + 1;
     const line = cell.place.startLine + 1;
-    if (state.status === "failed") failures.push({ cell: number, line, status: "failed", error: state.error });
+    if (state.status === "failed") {
+      failures.push({ cell: number, line, status: "failed", error: state.error });
+    }
     if (state.status === "blocked") {
       failures.push({
         cell: number,
@@ -108,12 +124,15 @@ export function verifyRun(run: NotebookRun, options: VerifyOptions = {}): Notebo
     if (!recorded) continue;
     const notebookCell = run.notebook.cells[i];
     const before = notebookCell?.recorded ? parseRecorded(notebookCell.recorded.content) : [];
-    const now = cellEntries(state, number, { cellLabel: (id) => `cell ${numberOf.get(id) ?? "?"}` }).entries;
+    const now = cellEntries(state, number, {
+      cellLabel: (id) => `cell ${numberOf.get(id) ?? "?"}`,
+    }).entries;
     const found = compareEntries(before, now, options);
     if (found.length > 0) drifts.push({ cell: number, line, drifts: found });
     else agreed += before.length;
   }
-  const passed = failures.length === 0 && drifts.length === 0 && checks.every((check) => check.pass);
+  const passed = failures.length === 0 && drifts.length === 0 &&
+    checks.every((check) => check.pass);
   const version = run.notebook.version?.version;
   return {
     path: run.path,

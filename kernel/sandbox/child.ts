@@ -39,17 +39,34 @@ const cancelled = new Set<number>();
 const queue: HostMessage[] = [];
 let wake: (() => void) | undefined;
 
+/** Set by the host's first message; every reply starts with it, so text a cell writes
+ * to stdout itself can never pass for a reply. */
+let token = "";
+
 function send(message: ChildMessage): void {
-  const bytes = encoder.encode(encodeLine(message));
+  // The leading line break ends any partial line a cell wrote to stdout itself.
+  const bytes = encoder.encode("\n" + token + encodeLine(message));
   let written = 0;
   while (written < bytes.length) written += stdout.writeSync(bytes.subarray(written));
 }
 
+/** Most characters one cell may print; the rest is dropped with a note. */
+const MAX_PRINTED = 1_000_000;
+let printed = 0;
+
 function stream(name: StreamChunk["name"], args: unknown[]): void {
-  const text = args.map((arg) =>
-    typeof arg === "string" ? arg : Deno.inspect(arg, { colors: false, depth: 4 })
-  ).join(" ") + "\n";
-  if (current) send({ type: "stream", batch: current.batch, cell: current.cell, chunk: { name, text } });
+  if (printed > MAX_PRINTED) return;
+  let text =
+    args.map((arg) =>
+      typeof arg === "string" ? arg : Deno.inspect(arg, { colors: false, depth: 4 })
+    ).join(" ") + "\n";
+  printed += text.length;
+  if (printed > MAX_PRINTED) {
+    text = `… (printing stopped: a cell may print at most ${MAX_PRINTED} characters)\n`;
+  }
+  if (current) {
+    send({ type: "stream", batch: current.batch, cell: current.cell, chunk: { name, text } });
+  }
 }
 
 // Cells' console output becomes stream messages on the cell that printed it.
@@ -59,6 +76,30 @@ for (const method of ["log", "info", "debug", "trace"] as const) {
 for (const method of ["warn", "error"] as const) {
   console[method] = (...args: unknown[]) => stream("err", args);
 }
+// The host's messages are ours alone: take stdin before any cell runs, then hide it.
+const input = Deno.stdin.readable;
+try {
+  Object.defineProperty(Deno, "stdin", {
+    get() {
+      throw new Error("stdin is not available in a notebook cell");
+    },
+  });
+} catch {
+  // A frozen namespace: stdin stays locked by our reader, which is enough for streams.
+}
+
+// A cell must not end the sandbox: Deno.exit throws instead (the cell fails, others go on).
+const exit = Deno.exit.bind(Deno);
+try {
+  Object.defineProperty(Deno, "exit", {
+    value: (code?: number) => {
+      throw new Error(`Deno.exit(${code ?? ""}) is not available in a notebook cell`);
+    },
+  });
+} catch {
+  // The namespace is frozen in this Deno: a cell calling Deno.exit is reported as a crash.
+}
+
 // A promise a cell forgot to await must not bring the sandbox down.
 globalThis.addEventListener("unhandledrejection", (event) => {
   event.preventDefault();
@@ -74,11 +115,18 @@ function cellMark(cell: string): string {
   return `\n//~${cell}~\n`;
 }
 
+/** Replaces cell module URLs (long `data:` URLs) with `cell:ID:LINE:COLUMN`. */
+function nameCellFrames(text: string): string {
+  return text.replace(
+    /data:application\/typescript,.*?~([\w-]+)~(?:%0A)?:(\d+):(\d+)/g,
+    "cell:$1:$2:$3",
+  );
+}
+
 function errorRecord(error: unknown): ErrorRecord {
   const name = error instanceof Error ? error.name : "Error";
-  const message = error instanceof Error ? error.message : String(error);
-  let stack = error instanceof Error ? error.stack ?? "" : "";
-  stack = stack.replace(/data:application\/typescript,.*?~([\w-]+)~(?:%0A)?:(\d+):(\d+)/g, "cell:$1:$2:$3");
+  const message = nameCellFrames(error instanceof Error ? error.message : String(error));
+  let stack = nameCellFrames(error instanceof Error ? error.stack ?? "" : "");
   // Drop frames of the sandbox itself; they say nothing about the notebook.
   stack = stack.split("\n").filter((line) => !line.includes("/kernel/sandbox/")).join("\n");
   const frame = /cell:([\w-]+):(\d+):(\d+)/.exec(stack);
@@ -110,13 +158,17 @@ async function runStep(batch: number, step: ChildStep, notebookUrl: string): Pro
   const moduleUrl = "data:application/typescript," +
     encodeURIComponent((step.source ?? "") + cellMark(step.cell));
   current = { batch, cell: step.cell };
+  printed = 0;
   send({ type: "started", batch, cell: step.cell });
   registry.declared = [];
   try {
     const module = await import(moduleUrl);
+    const notebookPath = decodeURIComponent(new URL(notebookUrl).pathname);
     const meta = {
       url: notebookUrl,
       main: false,
+      filename: notebookPath,
+      dirname: notebookPath.replace(/\/[^/]*$/, ""),
       resolve: (specifier: string) => new URL(specifier, notebookUrl).href,
     };
     const started = performance.now();
@@ -156,7 +208,7 @@ async function runBatch(message: Extract<HostMessage, { type: "run" }>): Promise
 async function readMessages(): Promise<void> {
   const decoder = new TextDecoder();
   let buffer = "";
-  for await (const chunk of Deno.stdin.readable) {
+  for await (const chunk of input) {
     buffer += decoder.decode(chunk, { stream: true });
     let newline = buffer.indexOf("\n");
     while (newline >= 0) {
@@ -165,18 +217,22 @@ async function readMessages(): Promise<void> {
       newline = buffer.indexOf("\n");
       if (line.trim() === "") continue;
       const message = decodeLine(line) as HostMessage;
+      if (message.type === "hello") {
+        token = message.token;
+        send({ type: "ready" });
+        continue;
+      }
       // A cancel must take effect while a batch is running, so it skips the queue.
       if (message.type === "cancel") cancelled.add(message.batch);
       else queue.push(message);
       wake?.();
     }
   }
-  Deno.exit(0);
+  exit(0);
 }
 
 async function main(): Promise<void> {
   readMessages();
-  send({ type: "ready" });
   for (;;) {
     const message = queue.shift();
     if (!message) {

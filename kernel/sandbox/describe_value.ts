@@ -75,7 +75,6 @@ export async function describeValue(
   for (const [name, named] of Object.entries(names)) {
     if (typeof named === "number") records.push({ name, value: named });
   }
-  if (typeof value === "number" && !(label in names)) records.push({ name: label, value });
   if (isPlainObject(value) && !isDisplayable(value) && !isCheck(value)) {
     for (const [key, field] of Object.entries(value)) {
       if (typeof field === "number") records.push({ name: `${label}.${key}`, value: field });
@@ -99,13 +98,15 @@ function collectChecks(value: unknown, take: (candidate: unknown) => void): void
   const items = Array.isArray(value) ? value : isPlainObject(value) ? Object.values(value) : [];
   for (const item of items.slice(0, 10_000)) {
     if (isCheck(item)) take(item);
-    else if (Array.isArray(item)) for (const inner of item.slice(0, 10_000)) take(inner);
+    else if (Array.isArray(item)) { for (const inner of item.slice(0, 10_000)) take(inner); }
   }
 }
 
 async function bundles(value: unknown): Promise<MimeBundle[]> {
   if (value === undefined) return [];
-  if (Array.isArray(value) && value.length > 0 && value.length <= 50 && value.every(isDisplayable)) {
+  if (
+    Array.isArray(value) && value.length > 0 && value.length <= 50 && value.every(isDisplayable)
+  ) {
     const all: MimeBundle[] = [];
     for (const item of value) all.push(await displayBundle(item));
     return all;
@@ -116,7 +117,9 @@ async function bundles(value: unknown): Promise<MimeBundle[]> {
     return [{ "text/plain": value.map(checkLine).join("\n") }];
   }
   const bundle: MimeBundle = { "text/plain": limit(plainText(value)) };
-  if (value !== null && typeof value === "object" && (Array.isArray(value) || isPlainObject(value))) {
+  if (
+    value !== null && typeof value === "object" && (Array.isArray(value) || isPlainObject(value))
+  ) {
     try {
       const json = JSON.stringify(value);
       if (json !== undefined && json.length <= 100_000) bundle["application/json"] = json;
@@ -142,7 +145,7 @@ async function displayBundle(value: object): Promise<MimeBundle> {
 
 function plainText(value: unknown): string {
   if (typeof value === "string") return value;
-  return Deno.inspect(value, {
+  return Deno.inspect(readable(value, 0, new Set()), {
     colors: false,
     depth: 4,
     iterableLimit: 200,
@@ -150,6 +153,29 @@ function plainText(value: unknown): string {
     breakLength: 100,
     getters: false,
   });
+}
+
+const INSPECT = Symbol.for("Deno.customInspect");
+
+/**
+ * A copy of plain data for printing: design checks print as their one-line verdict and
+ * symbol-keyed markers are left out. Other objects print as they are.
+ */
+function readable(value: unknown, depth: number, seen: Set<object>): unknown {
+  if (isCheck(value)) return { [INSPECT]: () => checkLine(value) };
+  if (value === null || typeof value !== "object" || depth > 5 || seen.has(value)) return value;
+  if (Array.isArray(value)) {
+    if (value.length > 1000) return value;
+    seen.add(value);
+    return value.map((item) => readable(item, depth + 1, seen));
+  }
+  if (!isPlainObject(value) || isDisplayable(value)) return value;
+  seen.add(value);
+  const copy: Record<string, unknown> = Object.getPrototypeOf(value) === null
+    ? Object.create(null)
+    : {};
+  for (const [key, field] of Object.entries(value)) copy[key] = readable(field, depth + 1, seen);
+  return copy;
 }
 
 function limit(text: string): string {

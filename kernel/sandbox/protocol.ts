@@ -3,6 +3,8 @@
  * child's stdin (requests) and stdout (replies). Numbers that JSON cannot carry (NaN, ±∞)
  * travel as `{"$number": "NaN"}` and are restored on arrival.
  *
+ *     host ──{ hello: token }────────────▶ child      (every reply starts with the token)
+ *     host ◀─{ ready }
  *     host ──{ run: steps }──────────────▶ child      (one batch, in plan order)
  *     host ◀─{ started } { stream }* { done | failed | blocked } ── per step
  *     host ◀─{ batchEnd }                             (or the child is killed on a timeout)
@@ -86,7 +88,14 @@ export interface ChildStep {
 
 /** Requests from host to child. */
 export type HostMessage =
-  | { type: "run"; batch: number; steps: ChildStep[]; values: Record<string, number>; notebookUrl: string }
+  | { type: "hello"; token: string }
+  | {
+    type: "run";
+    batch: number;
+    steps: ChildStep[];
+    values: Record<string, number>;
+    notebookUrl: string;
+  }
   | { type: "cancel"; batch: number };
 
 /** Where an error happened in a compiled cell (module line and column, 1-based). */
@@ -151,8 +160,11 @@ export type ChildMessage =
  * ```
  */
 export function encodeLine(message: unknown): string {
-  return JSON.stringify(message, (_key, value) =>
-    typeof value === "number" && !Number.isFinite(value) ? { $number: String(value) } : value) +
+  return JSON.stringify(
+    message,
+    (_key, value) =>
+      typeof value === "number" && !Number.isFinite(value) ? { $number: String(value) } : value,
+  ) +
     "\n";
 }
 
@@ -162,11 +174,21 @@ export function encodeLine(message: unknown): string {
  * @param line The line.
  * @returns The value.
  * @throws {SyntaxError} If the line is not JSON.
+ *
+ * @example
+ * ```ts
+ * import { decodeLine } from "./protocol.ts";
+ * import { deepEqual } from "node:assert/strict";
+ * deepEqual(decodeLine('{"margin":{"$number":"NaN"}}'), { margin: NaN });
+ * ```
  */
 export function decodeLine(line: string): unknown {
-  return JSON.parse(line, (_key, value) =>
-    value !== null && typeof value === "object" && typeof value.$number === "string" &&
-      Object.keys(value).length === 1
-      ? Number(value.$number)
-      : value);
+  return JSON.parse(
+    line,
+    (_key, value) =>
+      value !== null && typeof value === "object" && typeof value.$number === "string" &&
+        Object.keys(value).length === 1
+        ? Number(value.$number)
+        : value,
+  );
 }

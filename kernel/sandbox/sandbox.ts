@@ -35,6 +35,12 @@ export interface SandboxOptions {
    * @default {30000}
    */
   cellTimeoutMs?: number;
+  /**
+   * Largest JavaScript heap of the sandbox, in megabytes (a cell that needs more ends the
+   * process and is reported as a crash).
+   * @default {4096}
+   */
+  memoryMb?: number;
 }
 
 /** How a batch ended. */
@@ -88,7 +94,20 @@ export const NAMED_VARIABLES: readonly string[] = ["UNDICI_NO_WASM_SIMD", "UNDIC
 /** What the child process inherits: just enough for Deno to find its cache. */
 function childEnvironment(): Record<string, string> {
   const env: Record<string, string> = { NO_COLOR: "1", DENO_NO_UPDATE_CHECK: "1" };
-  for (const name of ["PATH", "HOME", "USERPROFILE", "LOCALAPPDATA", "DENO_DIR", "XDG_CACHE_HOME", "TMPDIR", "TEMP", "TMP", "SystemRoot"]) {
+  for (
+    const name of [
+      "PATH",
+      "HOME",
+      "USERPROFILE",
+      "LOCALAPPDATA",
+      "DENO_DIR",
+      "XDG_CACHE_HOME",
+      "TMPDIR",
+      "TEMP",
+      "TMP",
+      "SystemRoot",
+    ]
+  ) {
     try {
       const value = Deno.env.get(name);
       if (value !== undefined) env[name] = value;
@@ -117,7 +136,25 @@ function denoCacheDirs(): string[] {
   }
 }
 
-/** A sandbox process, started on first use and restarted after a kill. */
+/**
+ * A sandbox process, started on first use and restarted after a kill.
+ *
+ * @example One batch of one compiled cell
+ * ```ts
+ * import { Sandbox } from "./sandbox.ts";
+ * import { deepEqual } from "node:assert/strict";
+ * const dir = await Deno.makeTempDir();
+ * const sandbox = new Sandbox({ rootDir: new URL("../..", import.meta.url).pathname, notebookDir: dir });
+ * const kinds: string[] = [];
+ * const end = await sandbox.runBatch(
+ *   [{ cell: "c1", kind: "run", source: "export default async () => ({ value: 6 * 7, names: {} });" }],
+ *   { values: {}, notebookUrl: `file://${dir}/amp.md`, onMessage: (message) => kinds.push(message.type) },
+ * );
+ * deepEqual([end, kinds], [{ kind: "finished", cancelled: false }, ["started", "done"]]);
+ * await sandbox.close();
+ * await Deno.remove(dir, { recursive: true });
+ * ```
+ */
 export class Sandbox {
   readonly #options: SandboxOptions;
   #process: Deno.ChildProcess | undefined;
@@ -158,6 +195,7 @@ export class Sandbox {
         "--config",
         `${root}/deno.json`,
         "--no-lock",
+        `--v8-flags=--max-old-space-size=${this.#options.memoryMb ?? 4096}`,
         ...sandboxPermissions(this.#options),
         childPath.protocol === "file:" ? decodeURIComponent(childPath.pathname) : childPath.href,
       ],
@@ -179,12 +217,16 @@ export class Sandbox {
       signalReady = resolve;
       failReady = reject;
     });
+    const token = crypto.randomUUID();
     this.#readLines(process.stdout, (line) => {
+      // Only lines that start with the token are replies; anything else a cell printed
+      // to stdout directly is ignored.
+      if (!line.startsWith(token)) return;
       let message: ChildMessage;
       try {
-        message = decodeLine(line) as ChildMessage;
+        message = decodeLine(line.slice(token.length)) as ChildMessage;
       } catch {
-        return; // Stray text on stdout (a cell writing to it directly) is ignored.
+        return;
       }
       if (message.type === "ready") signalReady();
       else this.#listener?.(message);
@@ -197,6 +239,7 @@ export class Sandbox {
       }
       failReady(new Error(`The sandbox process exited (code ${status.code}) before it was ready`));
     });
+    this.#send({ type: "hello", token }).catch(() => {});
     this.#ready = ready;
     return ready;
   }
@@ -209,9 +252,17 @@ export class Sandbox {
         buffer += decoder.decode(chunk, { stream: true });
         let newline = buffer.indexOf("\n");
         while (newline >= 0) {
-          onLine(buffer.slice(0, newline));
+          const line = buffer.slice(0, newline);
           buffer = buffer.slice(newline + 1);
           newline = buffer.indexOf("\n");
+          try {
+            onLine(line);
+          } catch (error) {
+            // A listener's bug must not stop the reading (the child would block on a full pipe).
+            queueMicrotask(() => {
+              throw error;
+            });
+          }
         }
       }
     } catch {
@@ -278,8 +329,9 @@ export class Sandbox {
             clearTimeout(timer);
             currentCell = undefined;
           }
-          if (message.type === "batchEnd") resolve({ kind: "finished", cancelled: message.cancelled });
-          else options.onMessage(message);
+          if (message.type === "batchEnd") {
+            resolve({ kind: "finished", cancelled: message.cancelled });
+          } else options.onMessage(message);
         };
         process.status.then((status) => {
           // Give the stderr reader a moment to catch the last words.

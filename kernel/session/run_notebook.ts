@@ -4,7 +4,7 @@
  *
  * @module
  */
-import { splitNotebook, type Notebook } from "../notebook/split.ts";
+import { type Notebook, splitNotebook } from "../notebook/split.ts";
 import { basename } from "../_paths.ts";
 import type { CellState, CellSummary, SessionEvent } from "./events.ts";
 import { Session, type SessionCell, type SessionOptions } from "./session.ts";
@@ -40,6 +40,17 @@ export interface NotebookRun {
  * @param text The notebook's text.
  * @param options Session options and an event callback.
  * @returns The run.
+ *
+ * @example Two cells, run in the sandbox
+ * ```ts
+ * import { runNotebook } from "./run_notebook.ts";
+ * import { deepEqual } from "node:assert/strict";
+ * const dir = await Deno.makeTempDir();
+ * const run = await runNotebook(`${dir}/amp.md`, "~~~ts\nconst gain = 20;\n~~~\n~~~ts\ngain * 2\n~~~\n");
+ * deepEqual(run.states.map((state) => state.status), ["done", "done"]);
+ * deepEqual(run.states[1].outcome?.outputs, [{ "text/plain": "40" }]);
+ * await Deno.remove(dir, { recursive: true });
+ * ```
  */
 export async function runNotebook(
   path: string,

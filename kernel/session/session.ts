@@ -12,11 +12,16 @@
  *
  * @module
  */
-import { type CallDeclaration, type CellAnalysis, analyseCell } from "../analysis/analyse_cell.ts";
-import { buildGraph, type GraphCell, type GraphProblem, type NotebookGraph } from "../analysis/graph.ts";
+import { analyseCell, type CallDeclaration, type CellAnalysis } from "../analysis/analyse_cell.ts";
+import {
+  buildGraph,
+  type GraphCell,
+  type GraphProblem,
+  type NotebookGraph,
+} from "../analysis/graph.ts";
 import { planRun, type RunRecord } from "../analysis/plan.ts";
 import { adjustableCalls } from "../analysis/adjustables.ts";
-import { compileCell } from "../compile/compile_cell.ts";
+import { cellPosition, compileCell, type CompiledCell } from "../compile/compile_cell.ts";
 import { type NotebookCell, splitNotebook } from "../notebook/split.ts";
 import { locateInNotebook } from "../notebook/locate.ts";
 import { absolutePath, basename, dirname, fileUrlFromPath, ROOT_DIR } from "../_paths.ts";
@@ -77,12 +82,18 @@ export interface SessionCell {
  * A notebook session.
  *
  * @example Two cells, one depending on the other
- * ```ts ignore
+ * ```ts
  * import { Session } from "./session.ts";
- * const session = new Session({ path: "/tmp/design.md" });
- * session.subscribe((event) => console.log(event.type));
- * await session.send({ type: "open", text: "~~~ts\nconst a = 2\n~~~\n~~~ts\na * 3\n~~~\n" });
+ * import { deepEqual } from "node:assert/strict";
+ * const dir = await Deno.makeTempDir();
+ * const session = new Session({ path: `${dir}/design.md` });
+ * const running: string[] = [];
+ * session.subscribe((event) => event.type === "running" && running.push(event.cell));
+ * await session.send({ type: "open", text: "~~~ts\na * 3\n~~~\n~~~ts\nconst a = 2\n~~~\n" });
+ * deepEqual(running, ["c2", "c1"]); // dependency order, not document order
+ * deepEqual(session.state("c1").outcome?.outputs, [{ "text/plain": "6" }]);
  * await session.close();
+ * await Deno.remove(dir, { recursive: true });
  * ```
  */
 export class Session {
@@ -94,6 +105,8 @@ export class Session {
   #cells: SessionCell[] = [];
   #graph: NotebookGraph = buildGraph([]);
   #analyses = new Map<string, CellAnalysis>();
+  #byId = new Map<string, SessionCell>();
+  #compiled = new Map<string, CompiledCell>();
   #records = new Map<string, RunRecord>();
   #states = new Map<string, CellState>();
   #values: Record<string, number>;
@@ -170,8 +183,12 @@ export class Session {
         this.#open(request.text);
         break;
       case "edit": {
-        const cell = this.#cells.find((c) => c.id === request.cell);
-        if (!cell) throw new RangeError(`Expected the id of a cell, but found ${JSON.stringify(request.cell)}`);
+        const cell = this.#byId.get(request.cell);
+        if (!cell) {
+          throw new RangeError(
+            `Expected the id of a cell, but found ${JSON.stringify(request.cell)}`,
+          );
+        }
         if (cell.code !== request.code) {
           cell.code = request.code;
           cell.version++;
@@ -225,7 +242,7 @@ export class Session {
    * @returns 1-based notebook line and column.
    */
   locate(id: string, offset: number): { line: number; column: number } {
-    const cell = this.#cells.find((c) => c.id === id)!;
+    const cell = this.#byId.get(id)!;
     return locateInNotebook(cell.code, offset, cell.place);
   }
 
@@ -237,8 +254,10 @@ export class Session {
     const taken = new Set<SessionCell>();
     const next: SessionCell[] = [];
     // Keep identities: same code first (cells may have moved), then same position.
+    const byCode = new Map<string, SessionCell[]>();
+    for (const cell of old) byCode.set(cell.code, [...(byCode.get(cell.code) ?? []), cell]);
     const matches: Array<SessionCell | undefined> = notebook.cells.map((cell) => {
-      const same = old.find((o) => !taken.has(o) && o.code === cell.code);
+      const same = byCode.get(cell.code)?.shift();
       if (same) taken.add(same);
       return same;
     });
@@ -251,7 +270,11 @@ export class Session {
           taken.add(candidate);
         }
       }
-      const place = { startLine: cell.startLine, codeLine: cell.codeLine, columnOffsets: cell.columnOffsets };
+      const place = {
+        startLine: cell.startLine,
+        codeLine: cell.codeLine,
+        columnOffsets: cell.columnOffsets,
+      };
       if (match) {
         if (match.code !== cell.code) {
           match.code = cell.code;
@@ -272,8 +295,9 @@ export class Session {
         });
       }
     });
+    const kept = new Set(next);
     for (const gone of old) {
-      if (!next.includes(gone)) {
+      if (!kept.has(gone)) {
         this.#records.delete(gone.id);
         this.#states.delete(gone.id);
       }
@@ -309,6 +333,7 @@ export class Session {
 
   #rebuild(): void {
     this.#analyses = new Map(this.#cells.map((cell) => [cell.id, cell.analysis]));
+    this.#byId = new Map(this.#cells.map((cell) => [cell.id, cell]));
     this.#graph = buildGraph(this.#cells.map((cell) => ({
       id: cell.id,
       analysis: cell.analysis,
@@ -402,6 +427,7 @@ export class Session {
         inputs: node.inputs.map((input) => input.name),
         adjustables: this.#adjustableCalls(cell),
       });
+      this.#compiled.set(step.id, compiled);
       const last = cell.analysis.lastExpression;
       const lastText = last ? cell.code.slice(last.start, last.end) : "";
       childSteps.push({
@@ -409,7 +435,9 @@ export class Session {
         kind: "run",
         source: compiled.source,
         inputs: node.inputs,
-        label: /^[\p{L}_$][\p{L}\p{N}_$]*(\.[\p{L}_$][\p{L}\p{N}_$]*)*$/u.test(lastText) ? lastText : "value",
+        label: /^[\p{L}_$][\p{L}\p{N}_$]*(\.[\p{L}_$][\p{L}\p{N}_$]*)*$/u.test(lastText)
+          ? lastText
+          : "value",
       });
     }
     if (!childSteps.some((step) => step.kind === "run")) {
@@ -431,7 +459,7 @@ export class Session {
   ): void {
     if (!("cell" in message)) return;
     const id = message.cell;
-    if (!this.#cells.some((cell) => cell.id === id)) return;
+    if (!this.#byId.has(id)) return;
     const restore = restoring.has(id);
     const state = this.#states.get(id) ?? { status: "waiting" as const, streams: [] };
     switch (message.type) {
@@ -454,16 +482,22 @@ export class Session {
       case "failed": {
         this.#finish(id, versions, false);
         const error = message.error;
-        const place = error.at ? this.#modulePlace(error.at.cell, error.at.line, error.at.column) : {};
-        const stack = error.stack.replace(/cell:([\w-]+):(\d+):(\d+)/g, (_all, cell, line, column) => {
-          const at = this.#modulePlace(cell, Number(line), Number(column));
-          return `${basename(this.#path)}:${at.line ?? "?"}:${at.column ?? "?"}`;
-        });
+        const place = error.at
+          ? this.#modulePlace(error.at.cell, error.at.line, error.at.column)
+          : {};
+        const name = basename(this.#path);
+        const rewrite = (text: string) =>
+          text.replace(/cell:([\w-]+):(\d+):(\d+)/g, (_all, cell, line, column) => {
+            const at = this.#modulePlace(cell, Number(line), Number(column));
+            return `${name}:${at.line ?? "?"}${at.column === undefined ? "" : `:${at.column}`}`;
+          });
+        const stack = rewrite(error.stack);
+        const text = rewrite(error.message);
         this.#fail(id, {
           kind: error.denied ? "denied" : "runtime",
           message: error.denied
-            ? `${error.message.replace(/, run again with.*$/, "")}: the sandbox does not allow it`
-            : `${error.name}: ${error.message}`,
+            ? `${text.replace(/, run again with.*$/, "")}: the sandbox does not allow it`
+            : `${error.name}: ${text}`,
           ...place,
           stack,
         }, state.streams);
@@ -479,14 +513,14 @@ export class Session {
 
   /** Notebook line and column of a line and column in a cell's compiled module. */
   #modulePlace(id: string, line: number, column: number): { line?: number; column?: number } {
-    const cell = this.#cells.find((c) => c.id === id);
-    if (!cell) return {};
-    // Module line 1 is the compiled head; line n + 1 is the cell's line n.
-    const lineIndex = line - 2;
-    if (lineIndex < 0) return { line: cell.place.startLine + 1 };
+    const cell = this.#byId.get(id);
+    const compiled = this.#compiled.get(id);
+    if (!cell || !compiled) return {};
+    const position = cellPosition(compiled, line, column);
+    if (!position) return { line: cell.place.startLine + 1 };
     return {
-      line: cell.place.codeLine + lineIndex,
-      column: column + (cell.place.columnOffsets[lineIndex] ?? 0),
+      line: cell.place.codeLine + position.lineIndex,
+      column: position.column + (cell.place.columnOffsets[position.lineIndex] ?? 0),
     };
   }
 
@@ -506,6 +540,7 @@ export class Session {
       version: versions.get(id) ?? 0,
       result: ++this.#resultCounter,
       seen,
+      succeeded: held,
       held,
     });
   }
@@ -521,15 +556,21 @@ export class Session {
     for (const record of this.#records.values()) record.held = false;
     const cell = end.kind === "timeout" ? end.cell : end.cell;
     if (cell !== undefined) {
-      const place = this.#cells.find((c) => c.id === cell)?.place;
+      const place = this.#byId.get(cell)?.place;
       this.#finish(cell, versions, false);
-      this.#fail(cell, end.kind === "timeout"
-        ? {
-          kind: "timeout",
-          message: `Stopped after ${formatSeconds(end.limitMs)}: the cell ran longer than the time limit`,
-          line: place ? place.startLine + 1 : undefined,
-        }
-        : { kind: "crash", message: end.detail, line: place ? place.startLine + 1 : undefined }, this.state(cell).streams);
+      this.#fail(
+        cell,
+        end.kind === "timeout"
+          ? {
+            kind: "timeout",
+            message: `Stopped after ${
+              formatSeconds(end.limitMs)
+            }: the cell ran longer than the time limit`,
+            line: place ? place.startLine + 1 : undefined,
+          }
+          : { kind: "crash", message: end.detail, line: place ? place.startLine + 1 : undefined },
+        this.state(cell).streams,
+      );
       this.#dirty = true;
       return;
     }
@@ -537,7 +578,10 @@ export class Session {
     for (const [id, state] of this.#states) {
       if (state.status === "queued" || state.status === "running") {
         this.#finish(id, versions, false);
-        this.#fail(id, { kind: "crash", message: end.kind === "crashed" ? end.detail : "sandbox stopped" });
+        this.#fail(id, {
+          kind: "crash",
+          message: end.kind === "crashed" ? end.detail : "sandbox stopped",
+        });
       }
     }
   }

@@ -5,7 +5,13 @@
  * A small simulator stands in for the sandbox: it "runs" the planned cells in order and
  * records what each saw, as the session does, and a cell fails when told to.
  */
-import { analyseCell, buildGraph, type NotebookGraph, planRun, type RunRecord } from "../../kernel/analysis/mod.ts";
+import {
+  analyseCell,
+  buildGraph,
+  type NotebookGraph,
+  planRun,
+  type RunRecord,
+} from "../../kernel/analysis/mod.ts";
 import { assert, assertEquals } from "../_assert.ts";
 
 class Simulator {
@@ -24,7 +30,9 @@ class Simulator {
   }
 
   #build(): NotebookGraph {
-    return buildGraph(Object.entries(this.codes).map(([id, code]) => ({ id, analysis: analyseCell(code) })));
+    return buildGraph(
+      Object.entries(this.codes).map(([id, code]) => ({ id, analysis: analyseCell(code) })),
+    );
   }
 
   edit(id: string, code?: string): void {
@@ -48,7 +56,13 @@ class Simulator {
         status = this.failing.has(step.id) ? "failed" : "done";
       }
       this.status.set(step.id, status);
-      this.records.set(step.id, { version: this.versions.get(step.id)!, result: ++this.#result, seen, held: status === "done" });
+      this.records.set(step.id, {
+        version: this.versions.get(step.id)!,
+        result: ++this.#result,
+        seen,
+        succeeded: status === "done",
+        held: status === "done",
+      });
     }
     this.order.push(...ran);
     return ran;
@@ -57,7 +71,12 @@ class Simulator {
 
 Deno.test("chain: a → b → c → d runs each once, in order; editing c re-runs c and d only", () => {
   //   a ──▶ b ──▶ c ──▶ d
-  const sim = new Simulator({ d: "const d = c + 1", c: "const c = b + 1", b: "const b = a + 1", a: "const a = 1" });
+  const sim = new Simulator({
+    d: "const d = c + 1",
+    c: "const c = b + 1",
+    b: "const b = a + 1",
+    a: "const a = 1",
+  });
   assertEquals(sim.run(), ["a", "b", "c", "d"]);
   assertEquals(sim.run(), []);
   sim.edit("c", "const c = b + 2");
@@ -71,7 +90,12 @@ Deno.test("diamond: editing the top re-runs all four, the bottom once, after bot
   //   b   c
   //    ╲ ╱
   //     d
-  const sim = new Simulator({ a: "const a = 1", b: "const b = a * 2", c: "const c = a * 3", d: "const d = b + c" });
+  const sim = new Simulator({
+    a: "const a = 1",
+    b: "const b = a * 2",
+    c: "const c = a * 3",
+    d: "const d = b + c",
+  });
   sim.run();
   sim.edit("a", "const a = 2");
   const ran = sim.run();
@@ -117,7 +141,12 @@ Deno.test("cycle: the cells of a cycle fail, cells below it are blocked, the res
   });
   assertEquals(sim.graph.cycles, [["a", "b", "c"]]);
   assertEquals(sim.run(), ["e"]);
-  assertEquals(["a", "b", "c", "d"].map((id) => sim.status.get(id)), ["failed", "failed", "failed", "blocked"]);
+  assertEquals(["a", "b", "c", "d"].map((id) => sim.status.get(id)), [
+    "failed",
+    "failed",
+    "failed",
+    "blocked",
+  ]);
   // Breaking the cycle lets everything run, each once.
   sim.edit("a", "const a = 1");
   assertEquals(sim.run(), ["a", "b", "c", "d"]);
@@ -127,7 +156,12 @@ Deno.test("error in the middle: a failing cell blocks only its dependents, and f
   //   a ──▶ b (throws) ──▶ c
   //   │
   //   └──▶ d
-  const sim = new Simulator({ a: "const a = 1", b: "const b = a + 1", c: "const c = b + 1", d: "const d = a + 1" });
+  const sim = new Simulator({
+    a: "const a = 1",
+    b: "const b = a + 1",
+    c: "const c = b + 1",
+    d: "const d = a + 1",
+  });
   sim.failing.add("b");
   assertEquals(sim.run(), ["a", "b", "d"]);
   assertEquals(sim.status.get("c"), "blocked");
@@ -154,13 +188,25 @@ Deno.test("editing one input of a 1,000-cell notebook re-runs only its 10 depend
   const codes: Record<string, string> = {};
   for (let k = 0; k < 100; k++) {
     for (let i = 0; i < 10; i++) {
-      codes[`c${k}_${i}`] = i === 0 ? `const x${k}_0 = ${k};` : `const x${k}_${i} = x${k}_${i - 1} + 1;`;
+      codes[`c${k}_${i}`] = i === 0
+        ? `const x${k}_0 = ${k};`
+        : `const x${k}_${i} = x${k}_${i - 1} + 1;`;
     }
   }
   const sim = new Simulator(codes);
   assertEquals(sim.run().length, 1000); // exact: every cell once
   sim.edit("c42_3", "const x42_3 = x42_2 + 2;");
   assertEquals(sim.run(), ["c42_3", "c42_4", "c42_5", "c42_6", "c42_7", "c42_8", "c42_9"]);
+});
+
+Deno.test("a failed cell is not restored after a restart: its dependents stay blocked", () => {
+  //   a ──▶ b (failed) ──▶ c
+  const sim = new Simulator({ a: "const a = 1", b: "const b = a + 1", c: "const c = b + 1" });
+  sim.failing.add("b");
+  sim.run();
+  for (const record of sim.records.values()) record.held = false;
+  sim.edit("c", "const c = b + 2");
+  assertEquals(planRun(sim.graph, sim.versions, sim.records), [{ id: "c", restore: false }]);
 });
 
 Deno.test("a lost value is restored only when a stale cell needs it, and restoring makes nothing else stale", () => {
@@ -170,5 +216,8 @@ Deno.test("a lost value is restored only when a stale cell needs it, and restori
   for (const record of sim.records.values()) record.held = false;
   sim.edit("c", "const c = b + 2");
   const steps = planRun(sim.graph, sim.versions, sim.records);
-  assertEquals(steps, [{ id: "a", restore: true }, { id: "b", restore: true }, { id: "c", restore: false }]);
+  assertEquals(steps, [{ id: "a", restore: true }, { id: "b", restore: true }, {
+    id: "c",
+    restore: false,
+  }]);
 });

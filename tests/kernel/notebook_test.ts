@@ -161,19 +161,28 @@ Deno.test("writeRecorded() changes only the recorded blocks and the version line
     notebookParts(nb).filter((part) => part.kind === "prose" || part.kind === "cell")
       .map((part) => part.text.replace(/\r\n$/, "")).join("|");
   assertEquals(keep(again).replace(/\|\|/g, "|"), keep(notebook).replace(/\|\|/g, "|"));
-  assert.ok(out.includes("\r\n  ~~~\r\n\r\n  ```recorded\r\n  20\r\n  ```\r\n"), "indented like its cell");
+  assert.ok(
+    out.includes("\r\n  ~~~\r\n\r\n  ```recorded\r\n  20\r\n  ```\r\n"),
+    "indented like its cell",
+  );
   assert.ok(!/[^\r]\n/.test(out), "new lines use the file's CRLF line breaks");
   // Recording again with the same results changes nothing.
-  assertEquals(writeRecorded(again, [
-    { entries: [{ kind: "text", text: "10" }, { kind: "number", name: "gain", value: 10 }] },
-    { entries: [{ kind: "text", text: "20" }] },
-  ], "0.1.0"), out);
+  assertEquals(
+    writeRecorded(again, [
+      { entries: [{ kind: "text", text: "10" }, { kind: "number", name: "gain", value: 10 }] },
+      { entries: [{ kind: "text", text: "20" }] },
+    ], "0.1.0"),
+    out,
+  );
 });
 
 Deno.test("writeRecorded() removes a block when a cell has nothing to record", () => {
   const text = `${F}ts\nconst a = 1\n${F}\n\n${F}recorded\nold\n${F}\n\nAfter.\n`;
   const out = writeRecorded(splitNotebook(text), [{ entries: [] }], "0.1.0");
-  assertEquals(out, `${F}ts\nconst a = 1\n${F}\n\nAfter.\n\n<!-- results recorded by longtail 0.1.0 -->\n`);
+  assertEquals(
+    out,
+    `${F}ts\nconst a = 1\n${F}\n\nAfter.\n\n<!-- results recorded by longtail 0.1.0 -->\n`,
+  );
 });
 
 Deno.test("recorded blocks escape text lines that look like marks and fence themselves out of backticks", () => {
@@ -219,14 +228,22 @@ Deno.test("recordedLines() and parseRecorded() round-trip generated entries", ()
     fc.record({
       kind: fc.constant("number" as const),
       name: fc.stringMatching(/^[a-z][a-zA-Z0-9.]{0,8}$/),
-      value: fc.double({ noNaN: true, noDefaultInfinity: true }).map((x) => Number(x.toPrecision(6))),
+      value: fc.double({ noNaN: true, noDefaultInfinity: true }).map((x) =>
+        Number(x.toPrecision(6))
+      ),
     }),
-    fc.record({ kind: fc.constant("check" as const), pass: fc.boolean(), text: fc.stringMatching(/^[a-z =.]{1,20}$/) }),
+    fc.record({
+      kind: fc.constant("check" as const),
+      pass: fc.boolean(),
+      text: fc.stringMatching(/^[a-z =.]{1,20}$/),
+    }),
   );
   fc.assert(
     fc.property(fc.array(entry, { maxLength: 10 }), (entries) => {
       // fast-check builds objects without a prototype; the parser builds plain ones.
-      const normalised = entries.map((e) => (e.kind === "number" && Object.is(e.value, -0) ? { ...e, value: 0 } : { ...e }));
+      const normalised = entries.map((
+        e,
+      ) => (e.kind === "number" && Object.is(e.value, -0) ? { ...e, value: 0 } : { ...e }));
       assertEquals(parseRecorded(recordedLines(normalised).join("\n")), normalised);
     }),
     { numRuns: 200 },

@@ -20,7 +20,10 @@ interface Harness {
   close: () => Promise<void>;
 }
 
-async function open(codes: string[] | string, options: { cellTimeoutMs?: number; values?: Record<string, number> } = {}): Promise<Harness> {
+async function open(
+  codes: string[] | string,
+  options: { cellTimeoutMs?: number; values?: Record<string, number> } = {},
+): Promise<Harness> {
   const dir = await Deno.makeTempDir({ prefix: "longtail-session-" });
   const session = new Session({ path: `${dir}/notebook.md`, ...options });
   const events: SessionEvent[] = [];
@@ -53,7 +56,9 @@ Deno.test("Session runs a diamond's cells once each, the bottom after both sides
   try {
     assertEquals(["c1", "c2", "c3", "c4"].map(h.runs), [1, 1, 1, 1]); // exact: each cell once
     assertEquals(shown(h, "c4"), "16"); // closed form: 2·3 + 2·5
-    const order = h.events.filter((e) => e.type === "running").map((e) => (e as { cell: string }).cell);
+    const order = h.events.filter((e) => e.type === "running").map((e) =>
+      (e as { cell: string }).cell
+    );
     assertEquals(order.indexOf("c4"), 3); // exact: last
     assertEquals(h.events[0].type, "analysed");
     assertEquals(h.events[h.events.length - 1].type, "idle");
@@ -77,13 +82,20 @@ Deno.test("Session re-runs an edited cell and its dependents once each, and noth
 Deno.test("Session: an error in the middle blocks only its dependents, with the notebook line", async () => {
   //   c1 ──▶ c2 (throws) ──▶ c3
   //    └───▶ c4
-  const h = await open(["const a = 1;", "const b = a +\n  (undefined as unknown as { x: number }).x;", "b", "a + 1"]);
+  const h = await open([
+    "const a = 1;",
+    "const b = a +\n  (undefined as unknown as { x: number }).x;",
+    "b",
+    "a + 1",
+  ]);
   try {
     const failed = h.last("failed", "c2") as Extract<SessionEvent, { type: "failed" }>;
     assertEquals(failed.error.kind, "runtime");
     assert.match(failed.error.message, /^TypeError: Cannot read properties of undefined/);
     assertEquals(failed.error.line, 7); // exact: the cell's second code line in the notebook
-    assertEquals((h.last("blocked", "c3") as Extract<SessionEvent, { type: "blocked" }>).by, ["c2"]);
+    assertEquals((h.last("blocked", "c3") as Extract<SessionEvent, { type: "blocked" }>).by, [
+      "c2",
+    ]);
     assertEquals(shown(h, "c4"), "2"); // closed form
     // Fixing the broken cell runs it and the blocked one; the others stay as they were.
     await h.session.send({ type: "edit", cell: "c2", code: "const b = a + 41;" });
@@ -95,7 +107,12 @@ Deno.test("Session: an error in the middle blocks only its dependents, with the 
 });
 
 Deno.test("Session reports analysis problems without running, and blocks the cells below", async () => {
-  const h = await open(["const gain = 1;", "const x = gian * 2;", "x + 1", "const a = b;\nconst b = a;"]);
+  const h = await open([
+    "const gain = 1;",
+    "const x = gian * 2;",
+    "x + 1",
+    "const a = b;\nconst b = a;",
+  ]);
   try {
     const failed = h.last("failed", "c2") as Extract<SessionEvent, { type: "failed" }>;
     assertEquals(failed.error.kind, "problem");
@@ -111,7 +128,10 @@ Deno.test("Session reports analysis problems without running, and blocks the cel
 
 Deno.test("Session cancels the rest of a stale run when an edit arrives", async () => {
   //   c1 ──▶ c2 (slow) ──▶ c3
-  const h = await open(["const a = 1;", "await new Promise((r) => setTimeout(r, 400));\nconst slow = a;", "slow + 1"].slice(0, 1));
+  const h = await open(
+    ["const a = 1;", "await new Promise((r) => setTimeout(r, 400));\nconst slow = a;", "slow + 1"]
+      .slice(0, 1),
+  );
   try {
     const started = new Promise<void>((resolve) => {
       const stop = h.session.subscribe((event) => {
@@ -121,7 +141,11 @@ Deno.test("Session cancels the rest of a stale run when an edit arrives", async 
         }
       });
     });
-    const text = notebookOf(["const a = 1;", "await new Promise((r) => setTimeout(r, 400));\nconst slow = a;", "slow + 1"]);
+    const text = notebookOf([
+      "const a = 1;",
+      "await new Promise((r) => setTimeout(r, 400));\nconst slow = a;",
+      "slow + 1",
+    ]);
     const first = h.session.send({ type: "open", text });
     await started;
     const second = h.session.send({ type: "edit", cell: "c1", code: "const a = 5;" });
@@ -136,7 +160,12 @@ Deno.test("Session cancels the rest of a stale run when an edit arrives", async 
 
 Deno.test("Session stops a cell past its time limit, restarts the sandbox and goes on", async () => {
   //   c1 ──▶ c2 (endless) ──▶ c3        c1 ──▶ c4 (needs c1's value in the new sandbox)
-  const h = await open(["const a = 3;", "while (a > 0) { /* forever */ }\nconst stuck = a;", "stuck", "a * 2"], {
+  const h = await open([
+    "const a = 3;",
+    "while (a > 0) { /* forever */ }\nconst stuck = a;",
+    "stuck",
+    "a * 2",
+  ], {
     cellTimeoutMs: 1500,
   });
   try {
@@ -195,7 +224,10 @@ Deno.test("Session uses set adjustable values and re-runs only the cells that de
     assertEquals(["c1", "c2", "c3"].map(h.runs), [2, 2, 1]); // exact
     assertEquals(h.session.state("c1").outcome!.adjustables[0].value, 5e-3); // exact: as set
     await h.session.send({ type: "set", values: { tail: 0.5 } });
-    assert.match(h.session.state("c1").error!.message, /RangeError: Expected the value set for tail to be a finite number within/);
+    assert.match(
+      h.session.state("c1").error!.message,
+      /RangeError: Expected the value set for tail to be a finite number within/,
+    );
   } finally {
     await h.close();
   }
@@ -203,7 +235,10 @@ Deno.test("Session uses set adjustable values and re-runs only the cells that de
 
 Deno.test("Session runs top-level await and imports modules relative to a notebook outside the checkout", async () => {
   const dir = await Deno.makeTempDir({ prefix: "longtail-elsewhere-" });
-  await Deno.writeTextFile(`${dir}/parts.ts`, "export const seriesResistance = (a: number, b: number) => a + b;\n");
+  await Deno.writeTextFile(
+    `${dir}/parts.ts`,
+    "export const seriesResistance = (a: number, b: number) => a + b;\n",
+  );
   const session = new Session({ path: `${dir}/design.md` });
   try {
     await session.send({
@@ -224,7 +259,7 @@ Deno.test("the sandbox denies reads outside the notebook's folder, the environme
   const attempts = [
     'await Deno.readTextFile("/etc/hostname")',
     'Deno.env.get("HOME")',
-    'await fetch("http://127.0.0.1:9/")',
+    'await fetch("http://example.com/")',
     'await Deno.writeTextFile("written.txt", "x")',
     'new Deno.Command("true").outputSync()',
   ];
@@ -237,6 +272,57 @@ Deno.test("the sandbox denies reads outside the notebook's folder, the environme
     }
     assert.match(h.session.state("c1").error!.message, /read access to "\/etc\/hostname"/);
     await Deno.stat(`${h.dir}/written.txt`).then(() => assert.fail("the write happened"), () => {});
+  } finally {
+    await h.close();
+  }
+});
+
+Deno.test("a cell that calls Deno.exit or writes to stdout itself does not break the sandbox", async () => {
+  const h = await open([
+    'Deno.stdout.writeSync(new TextEncoder().encode("stray text, no line break"));\nconst a = 1;',
+    "Deno.exit(3);",
+    "a + 1",
+  ]);
+  try {
+    assertEquals(h.session.state("c1").status, "done");
+    const exit = h.session.state("c2").error!;
+    assertEquals([exit.kind, exit.line, exit.column], ["runtime", 7, 6]); // exact: `exit` on line 7, column 6
+    assert.match(exit.message, /Deno\.exit\(3\) is not available in a notebook cell/);
+    assertEquals(shown(h, "c3"), "2"); // closed form
+  } finally {
+    await h.close();
+  }
+});
+
+Deno.test("an import that cannot be resolved fails its cell at the cell's line, and the rest runs", async () => {
+  const h = await open(['import { nothing } from "./missing.ts";\nnothing', "const fine = 1;"]);
+  try {
+    const error = h.session.state("c1").error!;
+    assert.match(error.message, /^TypeError: Module not found "file:\/\/.*\/missing\.ts"/);
+    assert.ok(!error.message.includes("data:"), "no module URL in the message");
+    assertEquals(error.line, 1); // exact: the cell's opening fence
+    assertEquals(h.session.state("c2").status, "done");
+  } finally {
+    await h.close();
+  }
+});
+
+Deno.test("a cell cannot fake the sandbox's replies, read its stdin, or print without end", async () => {
+  const forged = JSON.stringify({ type: "done", batch: 1, cell: "c3", outcome: { outputs: [] } });
+  const h = await open([
+    `Deno.stdout.writeSync(new TextEncoder().encode(${
+      JSON.stringify("\n" + forged + "\n")
+    }));\nconst a = 1;`,
+    "Deno.stdin.readable",
+    "for (let i = 0; i < 200_000; i++) console.log('line', i);\nconst b = a;",
+  ]);
+  try {
+    assertEquals(h.session.state("c1").status, "done");
+    assert.match(h.session.state("c2").error!.message, /stdin is not available in a notebook cell/);
+    const printed = h.session.state("c3").streams.map((chunk) => chunk.text).join("");
+    assert.ok(printed.length < 1_100_000, `printed ${printed.length} characters`);
+    assert.match(printed, /printing stopped: a cell may print at most 1000000 characters/);
+    assertEquals(h.runs("c3"), 1); // exact: the forged "done" did not count
   } finally {
     await h.close();
   }
