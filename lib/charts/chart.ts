@@ -115,7 +115,13 @@ export class Chart {
       return element;
     };
     const figures = this.#panels.map((panel) =>
-      Plot.plot({ width: this.width, ...panel, document }) as unknown as ChartElement
+      // `as never`: Plot types `document` as the DOM lib's Document, which is present or
+      // absent depending on what else a program loads; ChartDocument is what we rely on.
+      Plot.plot({
+        width: this.width,
+        ...panel,
+        document: document as never,
+      }) as unknown as ChartElement
     );
     const heights = figures.map((figure) => Number(figure.getAttribute("height")));
     const height = TITLE_BAND + heights.reduce((a, b) => a + b, 0) +
