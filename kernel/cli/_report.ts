@@ -8,7 +8,7 @@ import type { CheckRecord } from "../sandbox/protocol.ts";
 import type { NotebookVerdict } from "../record/verify_notebook.ts";
 import type { TypeProblem } from "../compile/type_check.ts";
 import { type CliIo, paint, table } from "./_terminal.ts";
-import { formatQuantity } from "./_format.ts";
+import { formatQuantity } from "../_format.ts";
 
 /**
  * Prints a run: headings, each cell's outcome (values, printed text, errors), then the

@@ -1,31 +1,17 @@
 /**
- * `longtail`: the command line. Subcommands `run`, `record`, `verify` and `demo`; each
+ * `longtail`: the command line. Subcommands `run`, `record`, `verify`, `render` and `demo`; each
  * has `--help`. From a checkout: `deno task longtail <subcommand> ...`.
  *
  * @module
  */
-import { joinPath, ROOT_DIR } from "../_paths.ts";
 import { LONGTAIL_VERSION } from "../version.ts";
 import { UnreadableError, UsageError } from "./_common.ts";
+import { demoCommand } from "./demo_command.ts";
 import { recordCommand } from "./record_command.ts";
 import { renderCommand } from "./render.ts";
 import { runCommand } from "./run_command.ts";
-import { type CliIo, paint, terminalIo } from "./_terminal.ts";
+import { type CliIo, terminalIo } from "./_terminal.ts";
 import { verifyCommand } from "./verify_command.ts";
-
-/** The notebook `demo` verifies. */
-export const FLAGSHIP_NOTEBOOK: string = joinPath(ROOT_DIR, "notebooks", "power_amplifier.md");
-
-/** Where `demo` writes the flagship's report (out/ is git-ignored). */
-export const DEMO_REPORT: string = joinPath(ROOT_DIR, "out", "power_amplifier.html");
-
-/** Help text of `demo`. */
-export const DEMO_HELP = `Usage: longtail demo
-
-Verifies the flagship notebook, notebooks/power_amplifier.md (a three-stage power
-amplifier), prints the result, and writes its design report to out/power_amplifier.html
-(printing the path). Takes the same options as verify.
-`;
 
 /** The general help text. */
 export const HELP = `longtail ${LONGTAIL_VERSION} — amplifier design notebooks that check themselves
@@ -49,23 +35,6 @@ const COMMANDS: Record<string, (args: string[], io: CliIo) => Promise<number>> =
   render: renderCommand,
   demo: demoCommand,
 };
-
-async function demoCommand(args: string[], io: CliIo): Promise<number> {
-  if (args.includes("--help") || args.includes("-h")) {
-    io.out(DEMO_HELP);
-    return 0;
-  }
-  try {
-    await Deno.stat(FLAGSHIP_NOTEBOOK);
-  } catch {
-    io.err(`The flagship notebook ${FLAGSHIP_NOTEBOOK} is not there yet.\n`);
-    return 2;
-  }
-  const status = await verifyCommand([FLAGSHIP_NOTEBOOK, ...args], io);
-  io.out(paint(io, "gray", "Design report: "));
-  await renderCommand([FLAGSHIP_NOTEBOOK, "-o", DEMO_REPORT], io);
-  return status;
-}
 
 /**
  * Runs the command line.

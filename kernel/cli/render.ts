@@ -7,6 +7,7 @@
 import { parseArgs } from "node:util";
 import { renderReport } from "../report/render_report.ts";
 import { runNotebookForReport } from "../report/report_run.ts";
+import { writeFileAtomic } from "../record/write_files.ts";
 import { absolutePath, basename, dirname } from "../_paths.ts";
 import {
   parseSettings,
@@ -81,7 +82,8 @@ export async function renderCommand(args: string[], io: CliIo): Promise<number> 
     allowRead: (values["allow-read"] ?? []).map(absolutePath),
   });
   const html = renderReport({ ...source, path: relativeToCwd(path) }, run);
-  await writeAtomically(output, html);
+  await Deno.mkdir(dirname(output), { recursive: true });
+  await writeFileAtomic(output, html);
   io.out(`${relativeToCwd(output)}\n`);
   const failedCells = run.cells.filter((cell) => cell.status !== "done").length;
   const failedChecks =
@@ -93,26 +95,4 @@ export async function renderCommand(args: string[], io: CliIo): Promise<number> 
     return 1;
   }
   return 0;
-}
-
-/**
- * Writes a file so that readers see the old file or the new one, never half of one: the
- * text goes to a temporary file in the same folder, which is then renamed over the target.
- *
- * @param path The file to write (its folder is created when missing).
- * @param text The content.
- */
-export async function writeAtomically(path: string, text: string): Promise<void> {
-  const folder = dirname(path);
-  await Deno.mkdir(folder, { recursive: true });
-  const temporary = `${folder}/.${basename(path)}.${Deno.pid}-${
-    crypto.randomUUID().slice(0, 8)
-  }.tmp`;
-  try {
-    await Deno.writeTextFile(temporary, text);
-    await Deno.rename(temporary, path);
-  } catch (error) {
-    await Deno.remove(temporary).catch(() => {});
-    throw error;
-  }
 }

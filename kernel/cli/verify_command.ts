@@ -237,7 +237,14 @@ function parseShard(text: string | undefined): { index: number; count: number } 
   return { index, count };
 }
 
-function typeCheckTarget(path: string, text: string): TypeCheckTarget {
+/**
+ * What the batch type check needs of one notebook: its cells, their analysis and the graph.
+ *
+ * @param path The notebook's path (errors are reported against it).
+ * @param text The notebook's text.
+ * @returns The type-check target.
+ */
+export function typeCheckTarget(path: string, text: string): TypeCheckTarget {
   const notebook = splitNotebook(text, { fileName: basename(path) });
   const cells = notebook.cells.map((cell) => ({
     id: `c${cell.index + 1}`,

@@ -28,7 +28,7 @@ import { type NotebookCell, splitNotebook } from "../notebook/split.ts";
 import type { CellError, CellState, CheckRecord, MimeBundle } from "../session/events.ts";
 import { LONGTAIL_VERSION } from "../version.ts";
 import { escapeHtml } from "./_escape.ts";
-import { formatDuration, formatLimit, formatMargin, formatQuantity } from "./_format.ts";
+import { formatDuration, formatLimit, formatMargin, formatQuantity } from "../_format.ts";
 import { highlightCode } from "./_highlight.ts";
 import { renderInline, renderNotebookBody } from "./_prose.ts";
 import { sanitizeMarkup } from "./_sanitize.ts";

@@ -1,6 +1,6 @@
 /**
- * Numbers with units for the check summary. The kernel does not import the library, so
- * this is a small engineering-notation formatter of its own.
+ * Numbers with units for the terminal and the report. The kernel does not import the library,
+ * so this is a small engineering-notation formatter of its own.
  *
  * @module
  */
