@@ -8,6 +8,7 @@
  */
 import { parseSync } from "oxc-parser";
 import { type AstNode, type FreeReference, type TopLevelName, walkScopes } from "./_scope.ts";
+import { nestingProblem } from "./parse_guard.ts";
 
 export type { DeclarationKind, FreeReference, TopLevelName } from "./_scope.ts";
 
@@ -107,6 +108,19 @@ export interface CellAnalysis {
  * ```
  */
 export function analyseCell(code: string): CellAnalysis {
+  // Nesting past the native parser's stack aborts the whole process: rule that out first.
+  const tooDeep = nestingProblem(code);
+  if (tooDeep) {
+    return {
+      defines: [],
+      uses: [],
+      imports: [],
+      dynamicImports: [],
+      importMeta: [],
+      calls: [],
+      problems: [tooDeep],
+    };
+  }
   const parsed = parseSync("cell.ts", code, {
     sourceType: "module",
     lang: "ts",

@@ -305,7 +305,8 @@ function reportCycle(cycle: string[], byId: Map<string, GraphCell>): void {
     const uses = names.map((input) => `\`${input.name}\` from ${byId.get(input.from)!.label}`);
     return `${cell.label} uses ${uses.join(", ")}`;
   });
-  const message = `These cells depend on each other in a circle: ${links.join("; ")}`;
+  const message = `These cells depend on each other in a circle: ${links.join("; ")}. ` +
+    "Break the circle: one of these names must be computed without the others";
   for (const id of cycle) {
     byId.get(id)!.problems.push({
       kind: "cycle",

@@ -54,9 +54,9 @@ export async function readNotebookFile(path: string): Promise<{ bytes: Uint8Arra
     }
     throw new UnreadableError(`${path} cannot be read: ${(error as Error).message}`);
   }
+  let text: string;
   try {
-    const text = new TextDecoder("utf-8", { fatal: true, ignoreBOM: true }).decode(bytes);
-    return { bytes, text };
+    text = new TextDecoder("utf-8", { fatal: true, ignoreBOM: true }).decode(bytes);
   } catch {
     const at = firstInvalidUtf8(bytes);
     const line = new TextDecoder().decode(bytes.subarray(0, at)).split("\n").length;
@@ -67,6 +67,22 @@ export async function readNotebookFile(path: string): Promise<{ bytes: Uint8Arra
         "save it as UTF-8",
     );
   }
+  // An empty file is what an interrupted save leaves: it must not pass as a notebook.
+  if (text.replace(/^\uFEFF/, "").trim() === "") {
+    throw new UnreadableError(
+      `${path} is empty (line 1): there is no notebook in it; write a notebook or remove the file`,
+    );
+  }
+  // NUL is valid UTF-8 but never part of a notebook: a UTF-16 or binary file.
+  const nul = text.indexOf("\0");
+  if (nul >= 0) {
+    const line = text.slice(0, nul).split("\n").length;
+    throw new UnreadableError(
+      `${path} has NUL bytes (the first on line ${line}), so it is not a UTF-8 text notebook ` +
+        "(UTF-16 or binary?); save it as UTF-8",
+    );
+  }
+  return { bytes, text };
 }
 
 function firstInvalidUtf8(bytes: Uint8Array): number {

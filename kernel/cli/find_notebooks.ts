@@ -58,12 +58,19 @@ function escape(text: string): string {
   return text.replace(/[.+^${}()|[\]\\*?]/g, "\\$&");
 }
 
+/**
+ * Whether a Markdown file found in a folder is a notebook: it has cells, or it is broken
+ * (unreadable, empty, not UTF-8 text), so the reader reports it instead of skipping it.
+ */
 function hasCells(path: string): boolean {
+  let text: string;
   try {
-    return splitNotebook(Deno.readTextFileSync(path)).cells.length > 0;
+    text = new TextDecoder("utf-8", { fatal: true }).decode(Deno.readFileSync(path));
   } catch {
-    return false;
+    return true;
   }
+  if (text.trim() === "" || text.includes("\0")) return true;
+  return splitNotebook(text).cells.length > 0;
 }
 
 function walk(dir: string, visit: (path: string) => void): void {

@@ -9,13 +9,8 @@ import { NotebookChangedError, recordNotebook } from "../record/record_notebook.
 import { runNotebook } from "../session/run_notebook.ts";
 import { absolutePath } from "../_paths.ts";
 import { LONGTAIL_VERSION } from "../version.ts";
-import {
-  parseSettings,
-  readNotebookFile,
-  relativeToCwd,
-  timeoutMs,
-  UsageError,
-} from "./_common.ts";
+import { parseSettings, readNotebookFile, relativeToCwd, UsageError } from "./_common.ts";
+import { grantsLine, SANDBOX_ARGS, SANDBOX_HELP, sandboxSettings } from "./_sandbox_options.ts";
 import { printRun } from "./_report.ts";
 import { type CliIo, paint } from "./_terminal.ts";
 
@@ -30,8 +25,7 @@ Nothing else in the file changes. The file is replaced atomically.
 Options:
   --force             record even though a cell failed or was blocked
   --set NAME=VALUE    use another value for an adjustable value (repeatable)
-  --timeout SECONDS   time limit per cell (default 30)
-  --allow-read PATH   let the cells read PATH too (repeatable)
+${SANDBOX_HELP}
   --quiet             print only the summary
   -h, --help          show this help
 
@@ -63,8 +57,7 @@ export async function recordCommand(args: string[], io: CliIo): Promise<number> 
     options: {
       force: { type: "boolean" },
       set: { type: "string", multiple: true },
-      timeout: { type: "string" },
-      "allow-read": { type: "string", multiple: true },
+      ...SANDBOX_ARGS,
       quiet: { type: "boolean", short: "q" },
       help: { type: "boolean", short: "h" },
     },
@@ -79,12 +72,13 @@ export async function recordCommand(args: string[], io: CliIo): Promise<number> 
   const path = absolutePath(positionals[0]);
   const { bytes, text } = await readNotebookFile(path);
   const settings = parseSettings(values.set ?? [], text, path);
+  const sandbox = sandboxSettings(values);
   const run = await runNotebook(path, text, {
     values: settings,
-    cellTimeoutMs: timeoutMs(values.timeout),
-    allowRead: (values["allow-read"] ?? []).map((p) => absolutePath(p)),
+    ...sandbox,
   });
   const name = relativeToCwd(path);
+  io.out(grantsLine(sandbox));
   if (!values.quiet) printRun(io, run, name);
   const unfinished = run.states.filter((state) => state.status !== "done").length;
   if (unfinished > 0 && !values.force) {

@@ -7,13 +7,8 @@
 import { parseArgs } from "node:util";
 import { runNotebook } from "../session/run_notebook.ts";
 import { absolutePath } from "../_paths.ts";
-import {
-  parseSettings,
-  readNotebookFile,
-  relativeToCwd,
-  timeoutMs,
-  UsageError,
-} from "./_common.ts";
+import { parseSettings, readNotebookFile, relativeToCwd, UsageError } from "./_common.ts";
+import { grantsLine, SANDBOX_ARGS, SANDBOX_HELP, sandboxSettings } from "./_sandbox_options.ts";
 import { printRun } from "./_report.ts";
 import type { CliIo } from "./_terminal.ts";
 
@@ -27,8 +22,7 @@ Nothing is written.
 Options:
   --set NAME=VALUE    use another value for an adjustable value (repeatable);
                       VALUE may be 0.002, 2e-3, 2m, 4k7, 2mA
-  --timeout SECONDS   time limit per cell (default 30)
-  --allow-read PATH   let the cells read PATH too (repeatable)
+${SANDBOX_HELP}
   -h, --help          show this help
 
 Exit status: 0 every cell ran and every check passed, 1 otherwise, 2 bad usage or
@@ -58,8 +52,7 @@ export async function runCommand(args: string[], io: CliIo): Promise<number> {
     allowPositionals: true,
     options: {
       set: { type: "string", multiple: true },
-      timeout: { type: "string" },
-      "allow-read": { type: "string", multiple: true },
+      ...SANDBOX_ARGS,
       help: { type: "boolean", short: "h" },
     },
   });
@@ -73,11 +66,9 @@ export async function runCommand(args: string[], io: CliIo): Promise<number> {
   const path = absolutePath(positionals[0]);
   const { text } = await readNotebookFile(path);
   const settings = parseSettings(values.set ?? [], text, path);
-  const run = await runNotebook(path, text, {
-    values: settings,
-    cellTimeoutMs: timeoutMs(values.timeout),
-    allowRead: (values["allow-read"] ?? []).map((p) => absolutePath(p)),
-  });
+  const sandbox = sandboxSettings(values);
+  const run = await runNotebook(path, text, { values: settings, ...sandbox });
+  io.out(grantsLine(sandbox));
   printRun(io, run, relativeToCwd(path));
   const ok = run.states.every((state) => state.status === "done") &&
     run.states.every((state) => (state.outcome?.checks ?? []).every((check) => check.pass));

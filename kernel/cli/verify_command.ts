@@ -17,15 +17,10 @@ import { splitNotebook } from "../notebook/split.ts";
 import { DEFAULT_RTOL } from "../record/compare.ts";
 import { type NotebookVerdict, verifyRun } from "../record/verify_notebook.ts";
 import { runNotebook } from "../session/run_notebook.ts";
-import { absolutePath, basename } from "../_paths.ts";
+import { basename } from "../_paths.ts";
 import { LONGTAIL_VERSION } from "../version.ts";
-import {
-  readNotebookFile,
-  relativeToCwd,
-  timeoutMs,
-  UnreadableError,
-  UsageError,
-} from "./_common.ts";
+import { readNotebookFile, relativeToCwd, UnreadableError, UsageError } from "./_common.ts";
+import { grantsLine, SANDBOX_ARGS, SANDBOX_HELP, sandboxSettings } from "./_sandbox_options.ts";
 import { printVerdict } from "./_report.ts";
 import { findNotebooks, pickShard } from "./find_notebooks.ts";
 import { type JunitCase, junitXml } from "./junit.ts";
@@ -44,8 +39,7 @@ Options:
   --rtol NUMBER       relative tolerance for recorded numbers (default ${DEFAULT_RTOL})
   --junit FILE        also write a JUnit XML report to FILE
   --shard I/N         verify only the I-th of N equal shares (for CI matrices)
-  --timeout SECONDS   time limit per cell (default 30)
-  --allow-read PATH   let the cells read PATH too (repeatable)
+${SANDBOX_HELP}
   --no-type-check     skip the type check
   --timings           print where the time went
   -h, --help          show this help
@@ -87,8 +81,7 @@ export async function verifyCommand(args: string[], io: CliIo): Promise<number> 
       rtol: { type: "string" },
       junit: { type: "string" },
       shard: { type: "string" },
-      timeout: { type: "string" },
-      "allow-read": { type: "string", multiple: true },
+      ...SANDBOX_ARGS,
       "no-type-check": { type: "boolean" },
       timings: { type: "boolean" },
       help: { type: "boolean", short: "h" },
@@ -110,8 +103,8 @@ export async function verifyCommand(args: string[], io: CliIo): Promise<number> 
     );
   }
   const shard = parseShard(values.shard);
-  const cellTimeoutMs = timeoutMs(values.timeout);
-  const allowRead = (values["allow-read"] ?? []).map((p) => absolutePath(p));
+  const sandbox = sandboxSettings(values);
+  io.out(grantsLine(sandbox));
 
   const found = findNotebooks(positionals);
   let usageTrouble = found.problems.length > 0;
@@ -160,7 +153,7 @@ export async function verifyCommand(args: string[], io: CliIo): Promise<number> 
       io.err(`\r\x1b[2K[${done}/${entries.length}] verifying ${relativeToCwd(entry.path)} …`);
     }
     const started = performance.now();
-    const run = await runNotebook(entry.path, text, { cellTimeoutMs, allowRead });
+    const run = await runNotebook(entry.path, text, sandbox);
     entry.verdict = verifyRun(run, { rtol });
     entry.seconds = (performance.now() - started) / 1000;
     runMs += run.timing.runMs + run.timing.analysisMs;

@@ -55,7 +55,7 @@ export function stripTerminator(line: string): string {
  * The line break a file mostly uses, so inserted lines match their neighbours.
  *
  * @param lines Lines from {@linkcode splitLines}.
- * @returns `"\r\n"` when most lines end that way, otherwise `"\n"`.
+ * @returns `"\r\n"` or `"\r"` when most lines end that way, otherwise `"\n"`.
  *
  * @example
  * ```ts
@@ -64,12 +64,16 @@ export function stripTerminator(line: string): string {
  * equal(dominantNewline(["a\r\n", "b\r\n", "c\n"]), "\r\n");
  * ```
  */
-export function dominantNewline(lines: readonly string[]): "\n" | "\r\n" {
+export function dominantNewline(lines: readonly string[]): "\n" | "\r\n" | "\r" {
   let crlf = 0;
   let lf = 0;
+  let cr = 0;
   for (const line of lines) {
     if (line.endsWith("\r\n")) crlf++;
     else if (line.endsWith("\n")) lf++;
+    else if (line.endsWith("\r")) cr++;
   }
+  // A "\n" written after a line that ends in a lone "\r" would merge into one "\r\n".
+  if (cr > crlf && cr > lf) return "\r";
   return crlf > lf ? "\r\n" : "\n";
 }

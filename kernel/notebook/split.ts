@@ -130,7 +130,9 @@ export interface SplitOptions {
 export function splitNotebook(text: string, options: SplitOptions = {}): Notebook {
   const lines = splitLines(text);
   const chartsFolder = chartsFolderName(options.fileName ?? "notebook.md");
-  const tokens = markdownTokens(text);
+  // A UTF-8 byte-order mark is not text: CommonMark would see it as a character before
+  // the first fence or heading. It is not a line break either, so line maps stay right.
+  const tokens = markdownTokens(text.startsWith("\uFEFF") ? text.slice(1) : text);
   const cells: NotebookCell[] = [];
   const headings: NotebookHeading[] = [];
   let version: VersionMark | undefined;
@@ -151,7 +153,8 @@ export function splitNotebook(text: string, options: SplitOptions = {}): Noteboo
         line: map[0],
       });
     } else if (token.type === "html_block") {
-      const match = VERSION_LINE_PATTERN.exec(token.content.trim());
+      // The whole line must be the mark: one inside a list item or quote belongs to the prose.
+      const match = VERSION_LINE_PATTERN.exec(stripTerminator(lines[map[0]] ?? "").trim());
       if (match && map[1] - map[0] === 1) version = { line: map[0], version: match[1] };
     } else if (token.type === "fence" && isCellInfo(token.info)) {
       const cell = makeCell(token, lines, cells.length);
@@ -184,7 +187,7 @@ function makeCell(token: MarkdownToken, lines: string[], index: number): Noteboo
   const [startLine, endLine] = token.map!;
   const opening = stripTerminator(lines[startLine] ?? "");
   const fenceAt = opening.indexOf(token.markup);
-  const prefix = fenceAt > 0 ? opening.slice(0, fenceAt) : "";
+  const prefix = fenceAt > 0 ? opening.slice(0, fenceAt).replace(/^\uFEFF/, "") : "";
   const closed = isClosingFence(lines[endLine - 1], token.markup) && endLine - startLine >= 2;
   const codeLines = token.content.split("\n");
   const columnOffsets = codeLines.map((codeLine, k) => {

@@ -76,7 +76,9 @@ export function writeRecorded(
   }
   out.push(...lines.slice(line));
   let text = out.join("");
-  if (!notebook.version) {
+  // Text appended after a fence that is never closed would become part of its cell.
+  const endsInsideCell = notebook.cells.some((cell) => !cell.closed);
+  if (!notebook.version && !endsInsideCell) {
     if (text !== "" && !/[\r\n]$/.test(text)) text += newline;
     if (text !== "" && !/(\r\n|\r|\n)(\r\n|\r|\n)$/.test(text)) text += newline;
     text += mark + newline;
@@ -90,7 +92,9 @@ function renderBlock(record: CellRecord, prefix: string, newline: string): strin
   if (body.length === 0 && charts.length === 0) return "";
   const blank = prefix.trimEnd() + newline;
   const out: string[] = [];
-  if (body.length > 0) {
+  // The fence is written even when empty: the splitter finds chart links only right after
+  // a recorded block, and links it did not find would be written again on every record.
+  {
     const longest = Math.max(2, ...body.map((text) => longestRun(text, "`")));
     const fence = "`".repeat(longest + 1);
     out.push(blank, prefix + fence + RECORDED_TAG + newline);

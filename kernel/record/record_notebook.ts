@@ -1,9 +1,9 @@
 /**
  * `record`: writing a run's results into the notebook and its chart folder.
  *
- * Charts go to `<name>_charts/cell-N.svg` beside the notebook; chart files of this
- * notebook that no cell produces any more are removed. The notebook itself is written
- * last, atomically, and only if it did not change on disk while the cells ran.
+ * Charts go to `<name>_charts/cell-N.svg` beside the notebook. The notebook itself is
+ * written after its charts, atomically, and only if it did not change on disk while the
+ * cells ran; chart files that no cell produces any more are removed after that.
  *
  * @module
  */
@@ -129,6 +129,13 @@ export async function recordNotebook(
       written.push(path);
     }
   }
+  // Check again right before the swap: the charts took time, and an editor may have saved.
+  if (!sameBytes(await Deno.readFile(run.path), originalBytes)) {
+    throw new NotebookChangedError(run.path);
+  }
+  await writeFileAtomic(run.path, text);
+  // Old charts go only after the new notebook is in place: a kill before this point leaves
+  // the old notebook with every chart it links to.
   const removed: string[] = [];
   try {
     for (const entry of Deno.readDirSync(chartDir)) {
@@ -141,7 +148,6 @@ export async function recordNotebook(
   } catch (error) {
     if (!(error instanceof Deno.errors.NotFound)) throw error;
   }
-  await writeFileAtomic(run.path, text);
   return {
     text,
     recordedCells:

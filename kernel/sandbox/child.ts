@@ -206,6 +206,15 @@ async function runBatch(message: Extract<HostMessage, { type: "run" }>): Promise
 }
 
 async function readMessages(): Promise<void> {
+  try {
+    await readMessagesUntilEnd();
+  } finally {
+    // The host closed our stdin, or a reply could not be written (the host is gone).
+    exit(0);
+  }
+}
+
+async function readMessagesUntilEnd(): Promise<void> {
   const decoder = new TextDecoder();
   let buffer = "";
   for await (const chunk of input) {
@@ -228,10 +237,26 @@ async function readMessages(): Promise<void> {
       wake?.();
     }
   }
-  exit(0);
+}
+
+/**
+ * If the host dies, even by SIGKILL, while a cell loops, nothing in this thread could
+ * notice, and the process would spin on as an orphan. A watchdog thread ends it once its
+ * parent is gone. (A process may kill itself without permission, and the watchdog's code
+ * is a data URL, so it needs no read permission either.)
+ */
+function startWatchdog(): void {
+  // The host names itself: reading our parent now could be too late, if the host died
+  // while this process was still starting.
+  const host = Number(Deno.args[0]) || Deno.ppid;
+  const code = `const host = ${host};\n` +
+    'setInterval(() => { if (Deno.ppid !== host) Deno.kill(Deno.pid, "SIGKILL"); }, 500);\n' +
+    'if (Deno.ppid !== host) Deno.kill(Deno.pid, "SIGKILL");';
+  new Worker(`data:application/javascript,${encodeURIComponent(code)}`, { type: "module" });
 }
 
 async function main(): Promise<void> {
+  startWatchdog();
   readMessages();
   for (;;) {
     const message = queue.shift();

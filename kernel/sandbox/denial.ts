@@ -7,7 +7,8 @@
  *                  --allow-read=/home/amp/.ssh/id_ed25519 if you trust it
  *
  * Reads, network and named environment variables can be granted; writing files, starting
- * programs, loading native code and reading system information never can.
+ * programs, loading native code, importing code from the network and reading system
+ * information never can.
  *
  * @module
  */
@@ -95,9 +96,8 @@ export function explainDenial(message: string, options: { notebookDir?: string }
       return `this notebook tried to read the environment variable ${target || "(all of them)"}; ` +
         grant("--allow-env", target);
     case "import":
-      return `this notebook tried to import from ${target || "the network"}; ${
-        grant("--allow-net", target)
-      }`;
+      return `this notebook tried to import code from ${target || "the network"}; notebooks may ` +
+        "import only the library, installed npm packages and files in their own folder";
     case "write":
       return `this notebook tried to write ${full || "a file"}; notebooks may never write files ` +
         "(longtail record writes their results)";
@@ -111,6 +111,9 @@ export function explainDenial(message: string, options: { notebookDir?: string }
     case "sys":
       return `this notebook tried to read system information${target ? ` (${target})` : ""}; ` +
         "notebooks may never read it";
+    case "all":
+      return `this notebook tried to use ${target || "something"}, which needs every permission; ` +
+        "notebooks may never have that";
     default:
       return `this notebook tried something the sandbox does not allow (${denial.kind}${
         target ? ` ${target}` : ""

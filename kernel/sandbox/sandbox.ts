@@ -18,6 +18,7 @@ import {
   encodeLine,
   type HostMessage,
 } from "./protocol.ts";
+import { crashDetail } from "./crash_detail.ts";
 
 /** Options for {@linkcode Sandbox}. */
 export interface SandboxOptions {
@@ -30,6 +31,16 @@ export interface SandboxOptions {
    * @default {[]}
    */
   allowRead?: string[];
+  /**
+   * Hosts (`name` or `name:port`) the child may reach over the network.
+   * @default {[]}
+   */
+  allowNet?: string[];
+  /**
+   * Environment variables passed to the child and readable by its cells.
+   * @default {[]}
+   */
+  allowEnv?: string[];
   /**
    * Per-cell time limit in milliseconds.
    * @default {30000}
@@ -78,11 +89,19 @@ export function sandboxPermissions(options: SandboxOptions): string[] {
     ...denoCacheDirs(),
     ...(options.allowRead ?? []),
   ];
-  return [
+  const flags = [
     "--no-prompt",
+    // Code comes only from the library, installed packages and the notebook's folder: no
+    // import may fetch anything (a URL can carry data out as well as code in).
+    "--deny-import",
+    "--cached-only",
     `--allow-read=${[...new Set(reads)].join(",")}`,
-    `--allow-env=${NAMED_VARIABLES.join(",")}`,
+    `--allow-env=${[...new Set([...NAMED_VARIABLES, ...(options.allowEnv ?? [])])].join(",")}`,
   ];
+  if ((options.allowNet ?? []).length > 0) {
+    flags.push(`--allow-net=${[...new Set(options.allowNet)].join(",")}`);
+  }
+  return flags;
 }
 
 /**
@@ -91,23 +110,16 @@ export function sandboxPermissions(options: SandboxOptions): string[] {
  */
 export const NAMED_VARIABLES: readonly string[] = ["UNDICI_NO_WASM_SIMD", "UNDICI_USE_MILO"];
 
-/** What the child process inherits: just enough for Deno to find its cache. */
-function childEnvironment(): Record<string, string> {
+/**
+ * What the child process gets: where Deno's cache is (named directly, so no home folder is
+ * needed), the program search path, and the variables granted by name.
+ */
+function childEnvironment(granted: readonly string[] = []): Record<string, string> {
   const env: Record<string, string> = { NO_COLOR: "1", DENO_NO_UPDATE_CHECK: "1" };
-  for (
-    const name of [
-      "PATH",
-      "HOME",
-      "USERPROFILE",
-      "LOCALAPPDATA",
-      "DENO_DIR",
-      "XDG_CACHE_HOME",
-      "TMPDIR",
-      "TEMP",
-      "TMP",
-      "SystemRoot",
-    ]
-  ) {
+  const cache = denoCacheDirs()[0];
+  if (cache !== undefined) env.DENO_DIR = cache;
+  // PATH lets a denied `new Deno.Command("ls")` be reported as denied, not as "not found".
+  for (const name of ["PATH", "SystemRoot", ...granted]) {
     try {
       const value = Deno.env.get(name);
       if (value !== undefined) env[name] = value;
@@ -198,13 +210,15 @@ export class Sandbox {
         `--v8-flags=--max-old-space-size=${this.#options.memoryMb ?? 4096}`,
         ...sandboxPermissions(this.#options),
         childPath.protocol === "file:" ? decodeURIComponent(childPath.pathname) : childPath.href,
+        // The child watches for this process to go away (see startWatchdog in child.ts).
+        String(Deno.pid),
       ],
       cwd: this.#options.notebookDir,
       stdin: "piped",
       stdout: "piped",
       stderr: "piped",
       clearEnv: true,
-      env: childEnvironment(),
+      env: childEnvironment(this.#options.allowEnv),
     });
     const process = command.spawn();
     this.#process = process;
@@ -339,9 +353,9 @@ export class Sandbox {
             resolve({
               kind: "crashed",
               cell: currentCell,
-              detail: `The sandbox process exited (code ${status.code}${
-                status.signal ? `, signal ${status.signal}` : ""
-              })\n${this.#stderr}`.trim(),
+              detail: crashDetail(status, this.#stderr, {
+                memoryMb: this.#options.memoryMb ?? 4096,
+              }),
             }), 50);
         });
         this.#send({

@@ -13,7 +13,15 @@ import { Session, type SessionCell, type SessionOptions } from "./session.ts";
 export interface RunNotebookOptions extends Omit<SessionOptions, "path"> {
   /** Called with every event as it happens (progress, live output). */
   onEvent?: (event: SessionEvent) => void;
+  /**
+   * Time limit for the whole notebook in milliseconds; cells not finished by then fail.
+   * @default {600000}
+   */
+  notebookTimeoutMs?: number;
 }
+
+/** Default time limit for a whole notebook, in milliseconds (ten minutes). */
+export const DEFAULT_NOTEBOOK_TIMEOUT_MS = 600_000;
 
 /** A finished headless run. */
 export interface NotebookRun {
@@ -69,7 +77,15 @@ export async function runNotebook(
     options.onEvent?.(event);
   });
   try {
-    await session.send({ type: "open", text });
+    const limitMs = options.notebookTimeoutMs ?? DEFAULT_NOTEBOOK_TIMEOUT_MS;
+    const limit = setTimeout(() => {
+      session.abort(`Not finished: the notebook time limit of ${limitMs / 1000} s was reached`);
+    }, limitMs);
+    try {
+      await session.send({ type: "open", text });
+    } finally {
+      clearTimeout(limit);
+    }
     const finished = performance.now();
     const cells = [...session.cells];
     return {

@@ -27,6 +27,8 @@ import { locateInNotebook } from "../notebook/locate.ts";
 import { absolutePath, basename, dirname, fileUrlFromPath, ROOT_DIR } from "../_paths.ts";
 import type { ChildMessage, ChildStep } from "../sandbox/protocol.ts";
 import { type BatchEnd, Sandbox } from "../sandbox/sandbox.ts";
+import { explainDenial, parseDenial } from "../sandbox/denial.ts";
+import { explainImportFailure, withoutModuleUrls } from "./import_failure.ts";
 import type {
   CellError,
   CellState,
@@ -60,6 +62,21 @@ export interface SessionOptions {
    * @default {[]}
    */
   allowRead?: string[];
+  /**
+   * Hosts (`name` or `name:port`) the sandbox may reach.
+   * @default {[]}
+   */
+  allowNet?: string[];
+  /**
+   * Environment variables passed to the sandbox, readable by cells.
+   * @default {[]}
+   */
+  allowEnv?: string[];
+  /**
+   * Largest JavaScript heap of the sandbox process, in megabytes.
+   * @default {4096}
+   */
+  memoryMb?: number;
 }
 
 /** One cell as the session holds it. */
@@ -114,6 +131,7 @@ export class Session {
   #resultCounter = 0;
   #force = new Set<string>();
   #dirty = false;
+  #aborted: string | undefined;
   #loop: Promise<void> | undefined;
   #analysisCache = new Map<string, CellAnalysis>();
 
@@ -131,6 +149,9 @@ export class Session {
       rootDir: options.rootDir ?? ROOT_DIR,
       notebookDir: dirname(this.#path),
       allowRead: options.allowRead,
+      allowNet: options.allowNet,
+      allowEnv: options.allowEnv,
+      memoryMb: options.memoryMb,
       cellTimeoutMs: options.cellTimeoutMs,
     });
   }
@@ -216,6 +237,19 @@ export class Session {
         return this.#loop ?? Promise.resolve();
     }
     return this.#schedule();
+  }
+
+  /**
+   * Stops at once: kills the sandbox and fails every cell that had not finished, with the
+   * reason given (for a time limit on the whole notebook).
+   *
+   * @param message Why, shown on each unfinished cell.
+   * @returns When the run has stopped.
+   */
+  async abort(message: string): Promise<void> {
+    this.#aborted = message;
+    this.#sandbox.kill();
+    await this.#loop?.catch(() => {});
   }
 
   /** Stops the sandbox. */
@@ -310,7 +344,8 @@ export class Session {
           ...next[i].analysis,
           problems: [...next[i].analysis.problems, {
             kind: "syntax",
-            message: `The fence opened on line ${cell.startLine + 1} is never closed`,
+            message: `The fence opened on line ${cell.startLine + 1} is never closed; ` +
+              "close it with a line of the same fence characters (such as ```)",
             offset: 0,
           }],
         };
@@ -393,6 +428,7 @@ export class Session {
   }
 
   async #runOnce(): Promise<void> {
+    if (this.#aborted !== undefined) return;
     const versions = new Map(this.#cells.map((cell) => [cell.id, cell.version]));
     const steps = planRun(this.#graph, versions, this.#records, { force: this.#force });
     this.#force.clear();
@@ -491,14 +527,23 @@ export class Session {
             const at = this.#modulePlace(cell, Number(line), Number(column));
             return `${name}:${at.line ?? "?"}${at.column === undefined ? "" : `:${at.column}`}`;
           });
-        const stack = rewrite(error.stack);
-        const text = rewrite(error.message);
+        const stack = withoutModuleUrls(rewrite(error.stack), name);
+        const text = withoutModuleUrls(rewrite(error.message), name);
+        // Say what the cell tried and how to allow it; place import failures on their import.
+        const denied = error.denied || parseDenial(error.message) !== undefined;
+        const imports = this.#byId.get(id)?.analysis.imports ?? [];
+        const failure = denied
+          ? undefined
+          : explainImportFailure(error.message, imports, this.#notebookUrl);
+        const where = failure?.offset !== undefined ? this.locate(id, failure.offset) : place;
         this.#fail(id, {
-          kind: error.denied ? "denied" : "runtime",
-          message: error.denied
-            ? `${text.replace(/, run again with.*$/, "")}: the sandbox does not allow it`
+          kind: denied ? "denied" : "runtime",
+          message: denied
+            ? explainDenial(error.message, { notebookDir: dirname(this.#path) })
+            : failure
+            ? failure.message
             : `${error.name}: ${text}`,
-          ...place,
+          ...where,
           stack,
         }, state.streams);
         return;
@@ -554,6 +599,19 @@ export class Session {
     if (end.kind === "finished") return;
     // The sandbox is gone and its values with it.
     for (const record of this.#records.values()) record.held = false;
+    if (this.#aborted !== undefined) {
+      for (const [id, state] of this.#states) {
+        if (state.status !== "queued" && state.status !== "running") continue;
+        const place = this.#byId.get(id)?.place;
+        this.#finish(id, versions, false);
+        this.#fail(id, {
+          kind: "timeout",
+          message: this.#aborted,
+          line: place ? place.startLine + 1 : undefined,
+        }, state.streams);
+      }
+      return;
+    }
     const cell = end.kind === "timeout" ? end.cell : end.cell;
     if (cell !== undefined) {
       const place = this.#byId.get(cell)?.place;

@@ -118,7 +118,10 @@ export async function megabyteLines(dir: string): Promise<string> {
   const path = join(dir, "megabyte_line.md");
   const prose = "gain ".repeat(200_000);
   const literal = "x".repeat(1_000_000);
-  await Deno.writeTextFile(path, `# Long lines\n\n${prose}\n\n\`\`\`ts\nconst long = "${literal}";\nlong.length\n\`\`\`\n`);
+  await Deno.writeTextFile(
+    path,
+    `# Long lines\n\n${prose}\n\n\`\`\`ts\nconst long = "${literal}";\nlong.length\n\`\`\`\n`,
+  );
   return path;
 }
 

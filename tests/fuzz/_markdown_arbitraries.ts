@@ -116,7 +116,7 @@ function codeLines(fenceChar: string): fc.Arbitrary<string[]> {
       "function f(x: number) { return x * 2; }",
       "",
       "  // indented comment",
-      "const ohm = \"Ω\";",
+      'const ohm = "Ω";',
       "tail * 2",
     ),
     // A run of the fence character that cannot close the fence: after other text.
@@ -138,7 +138,8 @@ const topLevelCell: fc.Arbitrary<Block> = fc.record({
 }).chain((shape) =>
   codeLines(shape.char).map((lines): Block => {
     const open = " ".repeat(shape.indent) + shape.char.repeat(shape.length) + shape.info;
-    const close = " ".repeat(shape.closeIndent) + shape.char.repeat(shape.length + shape.extraClose) +
+    const close = " ".repeat(shape.closeIndent) +
+      shape.char.repeat(shape.length + shape.extraClose) +
       shape.trailingSpaces;
     // CommonMark takes up to the opening fence's indentation off each content line.
     const reported = lines.map((line) => {

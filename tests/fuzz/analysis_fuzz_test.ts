@@ -20,7 +20,14 @@ import { fuzzParameters } from "./_fuzz.ts";
 import { BREAKING_TOKENS, generatedCell } from "./_typescript_arbitraries.ts";
 
 const PROBLEM_KINDS = new Set(["syntax", "export"]);
-const GRAPH_PROBLEM_KINDS = new Set(["syntax", "export", "duplicate", "undefined", "assignment", "cycle"]);
+const GRAPH_PROBLEM_KINDS = new Set([
+  "syntax",
+  "export",
+  "duplicate",
+  "undefined",
+  "assignment",
+  "cycle",
+]);
 
 Deno.test("analyseCell() finds the names every declaration form defines and uses", () => {
   fc.assert(
@@ -34,7 +41,9 @@ Deno.test("analyseCell() finds the names every declaration form defines and uses
       );
       // Globals (Math, console, Deno) are free too; the graph, not the analysis, drops them.
       const reads = new Set(
-        analysis.uses.filter((u) => !u.write && !u.typeOnly && !isGlobalName(u.name)).map((u) => u.name),
+        analysis.uses.filter((u) => !u.write && !u.typeOnly && !isGlobalName(u.name)).map((u) =>
+          u.name
+        ),
       );
       const writes = new Set(analysis.uses.filter((u) => u.write).map((u) => u.name));
       const types = new Set(analysis.uses.filter((u) => u.typeOnly).map((u) => u.name));
@@ -42,7 +51,11 @@ Deno.test("analyseCell() finds the names every declaration form defines and uses
       assertEquals(writes, cell.writes, `writes of\n${cell.code}`);
       assertEquals(types, cell.typeUses, `type uses of\n${cell.code}`);
       for (const use of analysis.uses) {
-        assert.equal(cell.code.slice(use.start, use.start + use.name.length), use.name, "offsets point at the name");
+        assert.equal(
+          cell.code.slice(use.start, use.start + use.name.length),
+          use.name,
+          "offsets point at the name",
+        );
       }
       const last = analysis.lastExpression;
       assertEquals(last && cell.code.slice(last.start, last.end), cell.lastExpression);
@@ -55,7 +68,10 @@ Deno.test("analyseCell() reports broken code as syntax problems and never throws
   fc.assert(
     fc.property(
       generatedCell(),
-      fc.array(fc.tuple(fc.nat(), fc.constantFrom(...BREAKING_TOKENS)), { minLength: 1, maxLength: 3 }),
+      fc.array(fc.tuple(fc.nat(), fc.constantFrom(...BREAKING_TOKENS)), {
+        minLength: 1,
+        maxLength: 3,
+      }),
       (cell, insertions) => {
         let code = cell.code;
         for (const [at, token] of insertions) {
@@ -65,7 +81,10 @@ Deno.test("analyseCell() reports broken code as syntax problems and never throws
         const analysis = analyseCell(code);
         for (const problem of analysis.problems) {
           assert.ok(PROBLEM_KINDS.has(problem.kind), problem.kind);
-          assert.ok(problem.offset >= 0 && problem.offset <= code.length, "the problem is inside the cell");
+          assert.ok(
+            problem.offset >= 0 && problem.offset <= code.length,
+            "the problem is inside the cell",
+          );
           assert.ok(problem.message.length > 0);
         }
         if (analysis.problems.some((problem) => problem.kind === "syntax")) {
@@ -141,10 +160,14 @@ Deno.test("buildGraph() finds every cycle, duplicate and unknown name, and order
   fc.assert(
     fc.property(randomNotebook, (cells) => {
       const ids = cells.map((_, i) => `c${i}`);
-      const graph = buildGraph(cells.map((cell, i) => ({ id: ids[i], analysis: analyseCell(cellCode(cell)) })));
+      const graph = buildGraph(
+        cells.map((cell, i) => ({ id: ids[i], analysis: analyseCell(cellCode(cell)) })),
+      );
       // Who defines what: the first cell to define a name owns it.
       const owner = new Map<string, string>();
-      cells.forEach((cell, i) => cell.defines.forEach((name) => owner.has(name) || owner.set(name, ids[i])));
+      cells.forEach((cell, i) =>
+        cell.defines.forEach((name) => owner.has(name) || owner.set(name, ids[i]))
+      );
       const edges = new Map<string, string[]>();
       cells.forEach((cell, i) => {
         const node = graph.byId.get(ids[i])!;
@@ -154,24 +177,36 @@ Deno.test("buildGraph() finds every cycle, duplicate and unknown name, and order
         );
         assertEquals(new Set(node.dependencies), expected, `dependencies of ${ids[i]}`);
         edges.set(ids[i], node.dependencies);
-        for (const problem of node.problems) assert.ok(GRAPH_PROBLEM_KINDS.has(problem.kind), problem.kind);
+        for (const problem of node.problems) {
+          assert.ok(GRAPH_PROBLEM_KINDS.has(problem.kind), problem.kind);
+        }
         if (cell.uses.includes("nowhere")) {
-          assert.ok(node.problems.some((p) => p.kind === "undefined" && p.message.includes("`nowhere`")));
+          assert.ok(
+            node.problems.some((p) => p.kind === "undefined" && p.message.includes("`nowhere`")),
+          );
         }
         for (const name of cell.defines) {
           const definers = cells.filter((other) => other.defines.includes(name)).length;
           if (definers > 1) {
             assert.ok(
-              node.problems.some((p) => p.kind === "duplicate" && p.message.includes(`\`${name}\``)),
+              node.problems.some((p) =>
+                p.kind === "duplicate" && p.message.includes(`\`${name}\``)
+              ),
               `${ids[i]} is told that ${name} has two definitions`,
             );
           }
         }
       });
       const groups = mutualGroups(edges, ids);
-      assertEquals(graph.cycles, groups, "the cycles are the groups of cells that reach each other");
+      assertEquals(
+        graph.cycles,
+        groups,
+        "the cycles are the groups of cells that reach each other",
+      );
       for (const group of groups) {
-        for (const id of group) assert.ok(graph.byId.get(id)!.problems.some((p) => p.kind === "cycle"));
+        for (const id of group) {
+          assert.ok(graph.byId.get(id)!.problems.some((p) => p.kind === "cycle"));
+        }
       }
       assertEquals([...graph.order].sort(), [...ids].sort(), "the order has every cell once");
       const position = new Map(graph.order.map((id, i) => [id, i]));
@@ -180,7 +215,10 @@ Deno.test("buildGraph() finds every cycle, duplicate and unknown name, and order
         for (const dependency of dependencies) {
           const sameCycle = groupOf.has(id) && groupOf.get(id) === groupOf.get(dependency);
           if (!sameCycle) {
-            assert.ok(position.get(dependency)! < position.get(id)!, `${dependency} runs before ${id}`);
+            assert.ok(
+              position.get(dependency)! < position.get(id)!,
+              `${dependency} runs before ${id}`,
+            );
           }
         }
       }

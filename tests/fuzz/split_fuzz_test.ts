@@ -61,8 +61,9 @@ function assertSplitInvariants(notebook: Notebook, text: string): void {
     assert.ok(heading.line >= 0 && heading.line < notebook.lines.length);
   }
   if (notebook.version) {
+    // The whole line is the mark (not a list item or a quote that contains it).
     const versionText = notebook.lines[notebook.version.line].trim();
-    if (!versionText.startsWith("*") && !versionText.startsWith(">") && !versionText.startsWith("-") && !/^\d/.test(versionText)) assert.ok(VERSION_LINE_PATTERN.test(versionText), "the version line is where it is said to be"); // TEMP
+    assert.ok(VERSION_LINE_PATTERN.test(versionText), "the version line is where it is said to be");
   }
 }
 
@@ -122,7 +123,10 @@ const recordedEntries: fc.Arbitrary<RecordedEntry[]> = fc.array(
       .map((text): RecordedEntry => ({ kind: "text", text })),
     fc.record({ name: fc.constantFrom("gain", "pair.gm", "Ω x", "a = b"), value: fc.double() })
       .map(({ name, value }): RecordedEntry => ({ kind: "number", name, value })),
-    fc.record({ pass: fc.boolean(), text: fc.constantFrom("gm = 38 mS is at least 10 mS", "Tj ok") })
+    fc.record({
+      pass: fc.boolean(),
+      text: fc.constantFrom("gm = 38 mS is at least 10 mS", "Tj ok"),
+    })
       .map(({ pass, text }): RecordedEntry => ({ kind: "check", pass, text })),
     fc.constantFrom("TypeError: x is not a function", "Error: a\nb")
       .map((text): RecordedEntry => ({ kind: "problem", text })),
@@ -130,7 +134,8 @@ const recordedEntries: fc.Arbitrary<RecordedEntry[]> = fc.array(
   { maxLength: 5 },
 ).map((entries) =>
   entries.filter((entry, i) =>
-    i === 0 || entry.kind !== entries[i - 1].kind || (entry.kind !== "text" && entry.kind !== "problem")
+    i === 0 || entry.kind !== entries[i - 1].kind ||
+    (entry.kind !== "text" && entry.kind !== "problem")
   )
 );
 
@@ -141,7 +146,11 @@ function expectedReadBack(entries: RecordedEntry[]): RecordedEntry[] {
       case "text":
         return { kind: "text", text: entry.text.replace(/\r\n|\r/g, "\n") };
       case "number":
-        return { kind: "number", name: entry.name, value: Number(String(Number(entry.value.toPrecision(6)))) };
+        return {
+          kind: "number",
+          name: entry.name,
+          value: Number(String(Number(entry.value.toPrecision(6)))),
+        };
       default:
         return entry;
     }
@@ -174,11 +183,10 @@ function ownText(notebook: Notebook): string {
 Deno.test("writeRecorded() changes only recorded blocks and the version line, and reads back", () => {
   fc.assert(
     fc.property(structuredNotebook(), records, (generated, chosen) => {
-      fc.pre(generated.cells.every((c) => c.closed)); // TEMP
-      fc.pre(generated.breaks !== "cr"); // TEMP
-      fc.pre(chosen.every((r) => r === null || r.entries.length > 0 || r.charts.length === 0)); // TEMP
       const notebook = splitNotebook(generated.text);
-      const perCell: Array<CellRecord | undefined> = notebook.cells.map((_, i) => chosen[i] ?? undefined);
+      const perCell: Array<CellRecord | undefined> = notebook.cells.map((_, i) =>
+        chosen[i] ?? undefined
+      );
       const written = writeRecorded(notebook, perCell, "0.1.0");
       const again = splitNotebook(written);
       assertSplitInvariants(again, written);
@@ -189,7 +197,13 @@ Deno.test("writeRecorded() changes only recorded blocks and the version line, an
       const after = ownText(again);
       assert.ok(after.startsWith(before), "the designer's text is kept");
       assert.match(after.slice(before.length), /^(\r\n|\r|\n)*$/);
-      assert.equal(again.version?.version, "0.1.0");
+      if (notebook.cells.some((cell) => !cell.closed)) {
+        // A fence that is never closed swallows whatever follows it: nothing is appended.
+        assert.equal(after, before, "nothing is appended inside an unclosed fence");
+        assert.equal(again.version, undefined);
+      } else {
+        assert.equal(again.version?.version, "0.1.0");
+      }
       for (const [i, cell] of notebook.cells.entries()) {
         const record = perCell[i];
         if (record === undefined || !cell.closed) continue;
