@@ -9,13 +9,8 @@ import { renderReport } from "../report/render_report.ts";
 import { runNotebookForReport } from "../report/report_run.ts";
 import { writeFileAtomic } from "../record/write_files.ts";
 import { absolutePath, basename, dirname } from "../_paths.ts";
-import {
-  parseSettings,
-  readNotebookFile,
-  relativeToCwd,
-  timeoutMs,
-  UsageError,
-} from "./_common.ts";
+import { parseSettings, readNotebookFile, relativeToCwd, UsageError } from "./_common.ts";
+import { SANDBOX_ARGS, SANDBOX_HELP, sandboxSettings } from "./_sandbox_options.ts";
 import type { CliIo } from "./_terminal.ts";
 
 /** Help text of `render`. */
@@ -30,8 +25,7 @@ Options:
   -o, --output FILE   where to write the report (default: NOTEBOOK's name with .html,
                       in the current folder)
   --set NAME=VALUE    use another value for an adjustable value (repeatable)
-  --timeout SECONDS   time limit per cell (default 30)
-  --allow-read PATH   let the cells read PATH too (repeatable; the report says so)
+${SANDBOX_HELP}
   -h, --help          show this help
 
 Exit status: 0 report written, every cell ran and every check passed; 1 report written
@@ -53,8 +47,7 @@ export async function renderCommand(args: string[], io: CliIo): Promise<number> 
     options: {
       output: { type: "string", short: "o" },
       set: { type: "string", multiple: true },
-      timeout: { type: "string" },
-      "allow-read": { type: "string", multiple: true },
+      ...SANDBOX_ARGS,
       help: { type: "boolean", short: "h" },
     },
   });
@@ -76,11 +69,8 @@ export async function renderCommand(args: string[], io: CliIo): Promise<number> 
   }
   const { text } = await readNotebookFile(path);
   const settings = parseSettings(values.set ?? [], text, path);
-  const { source, run } = await runNotebookForReport(path, text, {
-    values: settings,
-    cellTimeoutMs: timeoutMs(values.timeout),
-    allowRead: (values["allow-read"] ?? []).map(absolutePath),
-  });
+  const sandbox = sandboxSettings(values);
+  const { source, run } = await runNotebookForReport(path, text, { values: settings, ...sandbox });
   const html = renderReport({ ...source, path: relativeToCwd(path) }, run);
   await Deno.mkdir(dirname(output), { recursive: true });
   await writeFileAtomic(output, html);

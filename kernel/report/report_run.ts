@@ -20,6 +20,16 @@ export interface ReportRunOptions {
    * @default {[]}
    */
   allowRead?: string[];
+  /**
+   * Hosts the notebook was allowed to reach.
+   * @default {[]}
+   */
+  allowNet?: string[];
+  /**
+   * Environment variables passed to the notebook.
+   * @default {[]}
+   */
+  allowEnv?: string[];
 }
 
 /**
@@ -46,9 +56,12 @@ export function reportRunOf(run: NotebookRun, options: ReportRunOptions): Report
   if (options.values && Object.keys(options.values).length > 0) {
     report.values = { ...options.values };
   }
-  if (options.allowRead && options.allowRead.length > 0) {
-    report.granted = options.allowRead.map((path) => `read ${path}`);
-  }
+  const granted = [
+    ...(options.allowRead ?? []).map((path) => `read ${path}`),
+    ...(options.allowNet ?? []).map((host) => `network ${host}`),
+    ...(options.allowEnv ?? []).map((name) => `environment variable ${name}`),
+  ];
+  if (granted.length > 0) report.granted = granted;
   return report;
 }
 
@@ -78,6 +91,12 @@ export async function runNotebookForReport(
   const run = await runNotebook(path, text, options);
   return {
     source: { text, path },
-    run: reportRunOf(run, { ranAt, values: options.values, allowRead: options.allowRead }),
+    run: reportRunOf(run, {
+      ranAt,
+      values: options.values,
+      allowRead: options.allowRead,
+      allowNet: options.allowNet,
+      allowEnv: options.allowEnv,
+    }),
   };
 }
