@@ -23,13 +23,16 @@ export const FLAGSHIP_NOTEBOOK: string = joinPath(ROOT_DIR, "notebooks", "power_
 /** Where `demo` writes the flagship's report (out/ is git-ignored). */
 export const DEMO_REPORT: string = joinPath(ROOT_DIR, "out", "power_amplifier.html");
 
+/** The flagship's cell that defines this name shows the figures `demo` prints first. */
+export const KEY_FIGURES = "keyFigures";
+
 /** Help text of `demo`. */
 export const DEMO_HELP = `Usage: longtail demo
 
 Runs the flagship notebook, notebooks/power_amplifier.md (a three-stage power
 amplifier), once: verifies it as \`longtail verify\` would (type check, recorded numbers,
-design checks), prints its design-check table, and writes its design report to
-out/power_amplifier.html.
+design checks), prints its key figures (the cell that defines \`keyFigures\`) and its
+design-check table, and writes its design report to out/power_amplifier.html.
 
 Exit status: 0 all passed, 1 a check, a cell, a type check or a recorded number failed.
 `;
@@ -66,6 +69,11 @@ export async function demoCommand(args: string[], io: CliIo): Promise<number> {
   const checked = await typeCheck;
   if (io.progress) io.err("\r\x1b[2K");
 
+  const keyCell = run.summaries.findIndex((cell) => cell.defines.includes(KEY_FIGURES));
+  const keyText = run.states[keyCell]?.outcome?.outputs[0]?.["text/plain"];
+  if (keyText !== undefined) {
+    io.out(`${paint(io, "bold", "Key figures")}\n${keyText.replace(/^/gm, "  ")}\n\n`);
+  }
   const checks = run.states.flatMap((state, i) =>
     (state.outcome?.checks ?? []).map((check) => ({ ...check, cell: run.cells[i].index + 1 }))
   );
