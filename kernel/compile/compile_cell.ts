@@ -53,6 +53,24 @@ export interface CompiledCell {
    * code line and column), so a module column can be turned back into the cell's column.
    */
   insertions: Array<[number, number, number]>;
+  /**
+   * The cell's imports, one binding per statement, so the sandbox can hoist the imports of
+   * many cells into one module and keep each binding once.
+   */
+  imports: HoistedImport[];
+  /**
+   * The cell's function alone (`async function (…) {` … `}`), the part of {@linkcode source}
+   * after its imports: its lines from the second on are the module's lines.
+   */
+  body: string;
+}
+
+/** One import statement a compiled cell needs. */
+export interface HoistedImport {
+  /** The statement, e.g. `import { formatSi } from "longtail/lib";`. */
+  statement: string;
+  /** The local name it binds (none for a side-effect import). */
+  local?: string;
 }
 
 /**
@@ -123,6 +141,9 @@ function lineAndColumn(code: string, offset: number): [number, number] {
  * deepEqual(compiled.names, ["helper", "gain"]);
  * equal(compiled.source.split("\n")[0].startsWith('import { helper } from "file:///home/amp/helpers.ts";'), true);
  * equal(compiled.source.split("\n")[3], ";__longtail_value = (gain * 2)");
+ * // The function alone, for a module shared with other cells: the same lines.
+ * equal(compiled.source.endsWith(compiled.body), true);
+ * deepEqual(compiled.imports.map((i) => i.local), ["helper"]);
  * ```
  */
 export function compileCell(
@@ -132,9 +153,11 @@ export function compileCell(
 ): CompiledCell {
   const edits: Edit[] = [];
   const hoisted: string[] = [];
+  const imports: HoistedImport[] = [];
   for (const declaration of analysis.imports) {
     const statement = importStatement(declaration, options.notebookUrl);
     if (statement) hoisted.push(statement);
+    imports.push(...bindingStatements(declaration, options.notebookUrl));
     edits.push({ start: declaration.start, end: declaration.end, text: blank(code, declaration) });
   }
   for (const dynamic of analysis.dynamicImports) {
@@ -164,10 +187,10 @@ export function compileCell(
   const inputs = options.inputs.length > 0
     ? `const { ${options.inputs.join(", ")} } = ${INPUTS_NAME}; `
     : "";
-  const head = hoisted.join(" ") +
-    `export default async function (${INPUTS_NAME}, ${META_NAME}) { ${inputs}let ${VALUE_NAME};`;
-  const tail = `\n;return { value: ${VALUE_NAME}, names: { ${names.join(", ")} } };\n}\n`;
-  return { source: `${head}\n${body}${tail}`, names, lineOffset: 1, insertions };
+  const fn = `async function (${INPUTS_NAME}, ${META_NAME}) { ${inputs}let ${VALUE_NAME};\n` +
+    body + `\n;return { value: ${VALUE_NAME}, names: { ${names.join(", ")} } };\n}\n`;
+  const source = hoisted.join(" ") + "export default " + fn;
+  return { source, names, lineOffset: 1, insertions, imports, body: fn };
 }
 
 /**
@@ -234,6 +257,27 @@ function importStatement(declaration: CellImport, notebookUrl: string): string |
   }
   if (named.length > 0) parts.push(`{ ${named.join(", ")} }`);
   return `import ${parts.join(", ")} from ${source}${attributes};`;
+}
+
+/** One statement per value binding (a side-effect import stays one statement). */
+function bindingStatements(declaration: CellImport, notebookUrl: string): HoistedImport[] {
+  if (declaration.typeOnly) return [];
+  const source = JSON.stringify(absoluteSpecifier(declaration.source, notebookUrl));
+  const attributes = declaration.attributes ? ` ${declaration.attributes}` : "";
+  if (declaration.bindings.length === 0) {
+    return [{ statement: `import ${source}${attributes};` }];
+  }
+  return declaration.bindings.filter((binding) => !binding.typeOnly).map((binding) => {
+    const imported = /^[\p{L}_$][\p{L}\p{N}_$]*$/u.test(binding.imported)
+      ? binding.imported
+      : JSON.stringify(binding.imported);
+    const clause = binding.imported === "default"
+      ? binding.local
+      : binding.imported === "*"
+      ? `* as ${binding.local}`
+      : `{ ${imported === binding.local ? imported : `${imported} as ${binding.local}`} }`;
+    return { statement: `import ${clause} from ${source}${attributes};`, local: binding.local };
+  });
 }
 
 /** Spaces in place of the code, keeping line breaks so lines stay where they were. */

@@ -6,6 +6,18 @@
  * A value that fails is stored as a failure, so a dependent sees the failure (and reports
  * itself blocked) instead of a stale number.
  *
+ * The cells of a run are loaded a couple of hundred at a time as one module, one exported
+ * function per cell, their imports hoisted once:
+ *
+ *     import { formatSi } from "longtail/lib";          ← every binding once
+ *     export const __longtail_cell_0 = async function (…) {   ← line 1 of cell c4's module
+ *     …c4's lines…
+ *     export const __longtail_cell_1 = async function (…) {   ← line 1 of cell c7's module
+ *
+ * A stack frame in such a module is turned back into the cell's own module line through a
+ * table of where each function starts. If the module cannot load (a missing file or
+ * export), each of its cells runs as a module of its own and reports its own error.
+ *
  * @module
  */
 import { ADJUSTABLE_REGISTRY, type AdjustableRegistry } from "../adjustable/adjustable.ts";
@@ -123,10 +135,116 @@ function nameCellFrames(text: string): string {
   );
 }
 
+/**
+ * Most cells put into one shared module. Deno gets slower with every module it has loaded
+ * (a module per cell: 4,000 cells take seconds each run), so the cells of a run go into a
+ * few modules, each still small enough to compile at once.
+ */
+const CELLS_PER_MODULE = 200;
+/** Functions of the running batch's cells, loaded in shared modules. */
+let prepared = new Map<ChildStep, CellFunction>();
+/** Steps whose shared module failed to load: each runs as its own module, as it would alone. */
+let unbatched = new Set<ChildStep>();
+/** Per shared module, the module line where each cell's function starts (its own line 1). */
+const sharedLines = new Map<string, Array<{ start: number; cell: string }>>();
+let sharedCount = 0;
+/** Shared module names by their cells and source. */
+const sharedNames = new Map<string, string>();
+
+/**
+ * Loads the steps from `from` on (up to {@linkcode CELLS_PER_MODULE}) as one module: the
+ * imports of all of them, each binding once, then one exported function per cell. A cell
+ * that binds a name another cell binds to a different import ends the module early.
+ */
+async function loadShared(steps: readonly ChildStep[], from: number): Promise<void> {
+  const chosen: ChildStep[] = [];
+  const bound = new Map<string, string>();
+  const statements = new Set<string>();
+  for (let i = from; i < steps.length && chosen.length < CELLS_PER_MODULE; i++) {
+    const step = steps[i];
+    if (step.kind !== "run" || !step.batchable || unbatched.has(step) || prepared.has(step)) {
+      continue;
+    }
+    const imports = step.batchable.imports;
+    if (
+      imports.some(({ statement, local }) =>
+        local !== undefined && (bound.get(local) ?? statement) !== statement
+      )
+    ) {
+      break;
+    }
+    for (const { statement, local } of imports) {
+      statements.add(statement);
+      if (local !== undefined) bound.set(local, statement);
+    }
+    chosen.push(step);
+  }
+  if (chosen.length === 0) return;
+  let source = [...statements].map((statement) => statement + "\n").join("");
+  const head = source;
+  for (const [k, step] of chosen.entries()) {
+    source += `export const ${SHARED_EXPORT}${k} = ${step.batchable!.body}`;
+  }
+  // The same cells again (a re-run) reuse their module, as a module per cell would.
+  const key = chosen.map((step) => step.cell).join(" ") + "\n" + source;
+  let name = sharedNames.get(key);
+  if (name === undefined) {
+    name = `shared-${++sharedCount}`;
+    sharedNames.set(key, name);
+    sharedLines.set(name, lineTable(chosen, head));
+  }
+  try {
+    const module = await import(
+      "data:application/typescript," + encodeURIComponent(source + cellMark(name))
+    );
+    chosen.forEach((step, k) => prepared.set(step, module[`${SHARED_EXPORT}${k}`]));
+  } catch {
+    // One cell's import or code spoils the module: every cell of it runs alone instead,
+    // so each reports its own error, just as it would have on its own.
+    for (const step of chosen) unbatched.add(step);
+  }
+}
+
+/** Where each cell's function starts in a shared module whose imports are `head`. */
+function lineTable(chosen: ChildStep[], head: string): Array<{ start: number; cell: string }> {
+  const table: Array<{ start: number; cell: string }> = [];
+  // An import's `with { … }` clause may span lines, so count them rather than statements.
+  let line = lineBreaks(head) + 1;
+  for (const step of chosen) {
+    table.push({ start: line, cell: step.cell });
+    line += lineBreaks(step.batchable!.body);
+  }
+  return table;
+}
+
+function lineBreaks(text: string): number {
+  let count = 0;
+  for (let at = text.indexOf("\n"); at >= 0; at = text.indexOf("\n", at + 1)) count++;
+  return count;
+}
+
+/** Export names of the cells' functions in a shared module. */
+const SHARED_EXPORT = "__longtail_cell_";
+
+/** Turns `cell:shared-N:LINE:COLUMN` into the cell's own `cell:ID:LINE:COLUMN`. */
+function nameSharedFrames(text: string): string {
+  return text.replace(/cell:(shared-\d+):(\d+):(\d+)/g, (all, shared, line, column) => {
+    const table = sharedLines.get(shared) ?? [];
+    const at = Number(line);
+    let found: { start: number; cell: string } | undefined;
+    for (const entry of table) {
+      if (entry.start > at) break;
+      found = entry;
+    }
+    return found ? `cell:${found.cell}:${at - found.start + 1}:${column}` : all;
+  });
+}
+
 function errorRecord(error: unknown): ErrorRecord {
   const name = error instanceof Error ? error.name : "Error";
-  const message = nameCellFrames(error instanceof Error ? error.message : String(error));
-  let stack = nameCellFrames(error instanceof Error ? error.stack ?? "" : "");
+  const frames = (text: string) => nameSharedFrames(nameCellFrames(text));
+  const message = frames(error instanceof Error ? error.message : String(error));
+  let stack = frames(error instanceof Error ? error.stack ?? "" : "");
   // Drop frames of the sandbox itself; they say nothing about the notebook.
   stack = stack.split("\n").filter((line) => !line.includes("/kernel/sandbox/")).join("\n");
   const frame = /cell:([\w-]+):(\d+):(\d+)/.exec(stack);
@@ -138,7 +256,13 @@ function errorRecord(error: unknown): ErrorRecord {
   return record;
 }
 
-async function runStep(batch: number, step: ChildStep, notebookUrl: string): Promise<void> {
+async function runStep(
+  batch: number,
+  steps: readonly ChildStep[],
+  index: number,
+  notebookUrl: string,
+): Promise<void> {
+  const step = steps[index];
   if (step.kind === "fail") {
     stored.set(step.cell, { ok: false });
     return;
@@ -155,14 +279,22 @@ async function runStep(batch: number, step: ChildStep, notebookUrl: string): Pro
     send({ type: "blocked", batch, cell: step.cell, by: [...blockers] });
     return;
   }
-  const moduleUrl = "data:application/typescript," +
-    encodeURIComponent((step.source ?? "") + cellMark(step.cell));
   current = { batch, cell: step.cell };
   printed = 0;
   send({ type: "started", batch, cell: step.cell });
   registry.declared = [];
   try {
-    const module = await import(moduleUrl);
+    if (step.batchable && !prepared.has(step) && !unbatched.has(step)) {
+      await loadShared(steps, index);
+    }
+    let cellFunction = prepared.get(step);
+    if (!cellFunction) {
+      const module = await import(
+        "data:application/typescript," +
+          encodeURIComponent((step.source ?? "") + cellMark(step.cell))
+      );
+      cellFunction = module.default as CellFunction;
+    }
     const notebookPath = decodeURIComponent(new URL(notebookUrl).pathname);
     const meta = {
       url: notebookUrl,
@@ -172,7 +304,7 @@ async function runStep(batch: number, step: ChildStep, notebookUrl: string): Pro
       resolve: (specifier: string) => new URL(specifier, notebookUrl).href,
     };
     const started = performance.now();
-    const { value, names } = await (module.default as CellFunction)(inputs, meta);
+    const { value, names } = await cellFunction(inputs, meta);
     const durationMs = performance.now() - started;
     stored.set(step.cell, { ok: true, names });
     const described = await describeValue(value, names, { label: step.label, counted });
@@ -193,13 +325,15 @@ async function runStep(batch: number, step: ChildStep, notebookUrl: string): Pro
 
 async function runBatch(message: Extract<HostMessage, { type: "run" }>): Promise<void> {
   registry.values = message.values;
+  prepared = new Map();
+  unbatched = new Set();
   let stopped = false;
-  for (const step of message.steps) {
+  for (let index = 0; index < message.steps.length; index++) {
     if (cancelled.has(message.batch)) {
       stopped = true;
       break;
     }
-    await runStep(message.batch, step, message.notebookUrl);
+    await runStep(message.batch, message.steps, index, message.notebookUrl);
   }
   cancelled.delete(message.batch);
   send({ type: "batchEnd", batch: message.batch, cancelled: stopped });

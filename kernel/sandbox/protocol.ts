@@ -80,6 +80,13 @@ export interface ChildStep {
   kind: "run" | "fail";
   /** Module source (for `run`). */
   source?: string;
+  /**
+   * The same cell as a function the sandbox may put into one module with other cells (a
+   * module per cell gets slow when there are thousands): its imports, one binding each,
+   * and the function's text, whose lines from the second on are lines of `source` too.
+   * Without it the cell runs as its own module.
+   */
+  batchable?: { imports: Array<{ statement: string; local?: string }>; body: string };
   /** Names the cell needs, with the cells that define them. */
   inputs?: Array<{ name: string; from: string }>;
   /** How to name the shown value in records (`pair` for a last expression `pair`). */

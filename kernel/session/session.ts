@@ -470,6 +470,7 @@ export class Session {
         cell: step.id,
         kind: "run",
         source: compiled.source,
+        batchable: { imports: compiled.imports, body: compiled.body },
         inputs: node.inputs,
         label: /^[\p{L}_$][\p{L}\p{N}_$]*(\.[\p{L}_$][\p{L}\p{N}_$]*)*$/u.test(lastText)
           ? lastText

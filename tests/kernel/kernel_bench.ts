@@ -1,7 +1,8 @@
 /**
  * Kernel speed: analysis and planning of a 1,000-cell notebook (target under 100 ms warm),
- * the latency of an edit that re-runs one chain of dependents, and the kernel's overhead
- * per cell against the same code run as one plain script.
+ * the latency of an edit that re-runs one chain of dependents, a full run of 1,000 cells
+ * in a fresh sandbox, and the kernel's overhead per cell against the same code run as one
+ * plain script.
  *
  * Run with `deno task bench tests/kernel/kernel_bench.ts`.
  */
@@ -94,6 +95,32 @@ Deno.bench({
       code:
         `const x42_0 = ${edits} + 0.25;\nfunction f42(v: number) { return Math.sqrt(v * v + 1); }`,
     });
+  },
+});
+
+// A full run from scratch: a new session (and sandbox process) opens 1,000 trivial cells
+// in a chain and runs them all. The sandbox loads the cells of a run in a few shared
+// modules; one module per cell made this take seconds.
+const CHAIN = Array.from(
+  { length: 1000 },
+  (_, i) => `${F}ts\n${i === 0 ? "const t0 = 1;" : `const t${i} = t${i - 1} + 1;`}\n${F}\n`,
+).join("\n");
+let fullRuns = 0;
+
+Deno.bench({
+  name: "open a 1,000-cell notebook of trivial cells and run all of it in a new sandbox",
+  group: "full run",
+  n: 5,
+  warmup: 1,
+  fn: async () => {
+    const session = new Session({ path: `${dir}/full_run_${++fullRuns}.md` });
+    try {
+      await session.send({ type: "open", text: CHAIN });
+      const last = session.state(session.cells[999].id);
+      if (last.status !== "done") throw new Error(`the last cell is ${last.status}`);
+    } finally {
+      await session.close();
+    }
   },
 });
 
