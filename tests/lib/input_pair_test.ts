@@ -693,6 +693,7 @@ Deno.test("a mirror-loaded pair's Monte Carlo reports its single-ended CMRR", ()
   const run = bjtPairMonteCarlo(options, { trials: 2000, saturationCurrentSpread: 0.05, seed: 4 });
   const nominal = bjtPair(options);
   assert(run.cmrrDefinition === "singleEnded");
-  assertClose(run.cmrrDbMedian, nominal.cmrr.singleEndedDb, { atol: 1 }); // D: Is mismatch barely moves the mirror-loaded CMRR
+  assert(run.cmrrDbMedian < nominal.cmrr.singleEndedDb); // D: the matched pair is the best case, mismatch lowers the median
+  assertClose(run.cmrrDbMedian, nominal.cmrr.singleEndedDb, { atol: 2 }); // D: a 5 % Is spread costs the mirror-loaded CMRR about 1 dB (2·10⁵ trials: 1.1 dB)
   assertClose(run.offsetMean, nominal.offset.exact, { atol: 4 * VT * 0.05 / Math.sqrt(2000) }); // D: the systematic offset is the mean, 4 standard errors
 });
