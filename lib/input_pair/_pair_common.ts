@@ -1,15 +1,23 @@
 /**
- * Pieces shared by the BJT and MOSFET pairs: validation, tail normalisation, decibels,
- * distortion series, linear range, slew rate and the checks both pairs offer.
+ * Pieces shared by the BJT and MOSFET pairs: validation, tail normalisation, bias-room errors,
+ * gains, decibels, offset totals, distortion series, linear range, slew rate, the two-port view
+ * and the checks both pairs offer.
  *
  * @module
  */
 import { requireBelow, requireFinite, requireInRange, requirePositive } from "../_validate.ts";
 import { harmonics } from "../analysis/harmonics.ts";
 import { atLeast, atMost, type CheckResult } from "../checks/check.ts";
+import type { TwoPort } from "../cascade/two_port.ts";
+import type { _PairResponse } from "./_network.ts";
 import type {
   PairCmrr,
+  PairGain,
   PairInputCommonModeRange,
+  PairNoise,
+  PairOffset,
+  PairOutput,
+  PairOutputResistance,
   PairRequirements,
   PairSlew,
   PairTail,
@@ -24,6 +32,27 @@ export function _requirePositiveOrInfinite(name: string, value: unknown, unit: s
   if (value === Infinity) return Infinity;
   requirePositive(name, value, unit);
   return value;
+}
+
+/** A value in an error message: six significant digits, no trailing zeros. */
+export function _show(value: number): string {
+  return String(Number(value.toPrecision(6)));
+}
+
+/** Throws unless the options argument is an object at all. */
+export function _requireOptionsObject(options: unknown): void {
+  if (options === null || typeof options !== "object") {
+    throw new TypeError(`Expected options to be an object, but found ${options}`);
+  }
+}
+
+/** The error for a load whose kind is neither "resistors" nor "mirror". */
+export function _unknownLoadKind(load: unknown): TypeError {
+  return new TypeError(
+    `Expected load.kind to be "resistors" or "mirror", but found ${
+      JSON.stringify((load as { kind?: unknown } | undefined)?.kind)
+    }`,
+  );
 }
 
 /** Normalised tail. */
@@ -93,6 +122,157 @@ export function _mismatch(name: string, value: number | undefined): number {
   return delta;
 }
 
+/** The words that name a pair's devices and nodes in its bias errors. */
+export interface _PairWords {
+  /** Device letter before the index: "Q" or "M". */
+  device: string;
+  /** Terminal at the load: "collector" or "drain". */
+  output: string;
+  /** Terminal at the tail: "emitter" or "source". */
+  common: string;
+  /** What lies between an input and the tail node: "VBE + IE·RE" or "VGS + Id·RS". */
+  inputDrop: string;
+  /** Why a mirror load caps the common-mode input, in parentheses after the limit. */
+  mirrorLimit: string;
+}
+
+/** The operating point {@linkcode _requireBiasRoom} judges. */
+export interface _PairBias {
+  tail: _Tail;
+  positiveRail: number;
+  negativeRail: number;
+  inputCommonMode: number;
+  /** Voltage of the tail node (the joined emitters or sources), V. */
+  tailVoltage: number;
+  /** The load, with its nominal resistance when it is a pair of resistors. */
+  load: { kind: "resistors"; resistance: number } | { kind: "mirror" };
+  /** Current through each side's load, A. */
+  currents: [number, number];
+  /** Each side's load resistor after mismatch, Ω (NaN for a mirror). */
+  resistors: [number, number];
+  /** Voltage of device 1's output node, V. */
+  firstOutputVoltage: number;
+}
+
+/**
+ * Throws for a bias that cannot work (a tail source with no voltage across it, a load that
+ * pulls an output below the tail node); a bias that works badly is left to the checks.
+ */
+export function _requireBiasRoom(bias: _PairBias, words: _PairWords): void {
+  const vicm = bias.inputCommonMode;
+  if (bias.tail.kind !== "resistor" && !(bias.tailVoltage > bias.negativeRail)) {
+    throw new RangeError(
+      `Expected inputCommonMode to be above ${
+        _show(vicm - bias.tailVoltage + bias.negativeRail)
+      } V (the negative rail plus ${words.inputDrop}, so the tail has voltage across it), but found ${vicm}`,
+    );
+  }
+  if (bias.load.kind === "resistors") {
+    const nominal = bias.load.resistance;
+    for (const index of [1, 2]) {
+      const r = bias.resistors[index - 1];
+      const largest = (bias.positiveRail - bias.tailVoltage) / bias.currents[index - 1];
+      if (!(r < largest)) {
+        throw new RangeError(
+          `Expected load.resistance to be below ${_show(largest / (r / nominal))} Ω ` +
+            `(the largest that keeps ${words.device}${index}'s ${words.output} above its ` +
+            `${words.common} at inputCommonMode = ${vicm} V), but found ${nominal}`,
+        );
+      }
+    }
+  } else if (!(bias.firstOutputVoltage > bias.tailVoltage)) {
+    throw new RangeError(
+      `Expected inputCommonMode to be below ${
+        _show(bias.firstOutputVoltage + vicm - bias.tailVoltage)
+      } V (${words.mirrorLimit}), but found ${vicm}`,
+    );
+  }
+}
+
+/** The gains read off the solved network; a mirror load has no differential output. */
+export function _pairGain(response: _PairResponse, mirrorLoad: boolean): PairGain {
+  const diff = response.differential;
+  const cm = response.commonMode;
+  return {
+    differential: mirrorLoad ? Number.NaN : diff.c2 - diff.c1,
+    singleEnded: diff.c2,
+    commonModeSingleEnded: cm.c2,
+    commonModeDifferential: mirrorLoad ? Number.NaN : cm.c2 - cm.c1,
+  };
+}
+
+/**
+ * Offset totals from the first-order sources: `random` lists the random ones (RSS'd), and the
+ * worst case adds their magnitudes to the systematic term's.
+ */
+export function _pairOffset(
+  sources: Record<string, number> & { systematic: number },
+  random: number[],
+  exact: number,
+): PairOffset {
+  return {
+    sources,
+    rss: Math.hypot(...random),
+    worstCase: random.reduce((sum, x) => sum + Math.abs(x), Math.abs(sources.systematic)),
+    exact,
+  };
+}
+
+/** Input-referred noise of the pair: two devices' voltage noise add in power. */
+export function _pairNoise(deviceVoltageDensity: number, currentDensity: number): PairNoise {
+  return {
+    deviceVoltageDensity,
+    voltageDensity: Math.SQRT2 * deviceVoltageDensity,
+    currentDensity,
+  };
+}
+
+/** Validated `output` option: a mirror load has only the single-ended output. */
+export function _pairOutput(output: PairOutput | undefined, mirrorLoad: boolean): PairOutput {
+  const chosen = output ?? "singleEnded";
+  if (chosen !== "singleEnded" && chosen !== "differential") {
+    throw new TypeError(
+      `Expected output to be "singleEnded" or "differential", but found ${JSON.stringify(chosen)}`,
+    );
+  }
+  if (chosen === "differential" && mirrorLoad) {
+    throw new RangeError(
+      `Expected output to be "singleEnded" with a mirror load (it has one output), but found "differential"`,
+    );
+  }
+  return chosen;
+}
+
+/** Output resistances and the two-port view of the chosen output. */
+export function _pairPorts(
+  response: _PairResponse,
+  view: {
+    name: string;
+    output: PairOutput;
+    mirrorLoad: boolean;
+    gain: PairGain;
+    inputResistance: number;
+  },
+): { outputResistance: PairOutputResistance; twoPort: TwoPort } {
+  const differential = view.output === "differential";
+  const outputResistance: PairOutputResistance = {
+    singleEnded: response.outputResistance,
+    differential: view.mirrorLoad ? Number.NaN : response.differentialOutputResistance,
+  };
+  const twoPort: TwoPort = {
+    name: view.name,
+    inputResistance: view.inputResistance,
+    openCircuitGain: differential ? view.gain.differential : view.gain.singleEnded,
+    outputResistance: differential ? outputResistance.differential : outputResistance.singleEnded,
+  };
+  return { outputResistance, twoPort };
+}
+
+/** Voltage across a tail source beyond its compliance, V (NaN for a resistor tail). */
+export function _tailHeadroom(tail: _Tail, tailVoltage: number, negativeRail: number): number {
+  return tail.kind === "resistor" ? Number.NaN : tailVoltage - negativeRail - tail.compliance;
+}
+
 /** 20·log10 of a magnitude. */
 export function _db(ratio: number): number {
   return 20 * Math.log10(Math.abs(ratio));
@@ -109,15 +289,17 @@ export function _ratio(a: number, b: number): number {
  * `reTotal` = re + RE (BJT) or 1/gm + RS (MOS); `loadDelta` = ΔR/R; `gmDelta` = ΔGm/Gm.
  */
 export function _cmrr(
-  gains: { differential: number; singleEnded: number; cmSingle: number; cmDiff: number },
+  gain: PairGain,
   tailResistance: number,
   reTotal: number,
   loadDelta: number,
   gmDelta: number,
   mirrorLoad: boolean,
 ): PairCmrr {
-  const singleEnded = _ratio(gains.singleEnded, gains.cmSingle);
-  const differential = mirrorLoad ? Number.NaN : _ratio(gains.differential, gains.cmDiff);
+  const singleEnded = _ratio(gain.singleEnded, gain.commonModeSingleEnded);
+  const differential = mirrorLoad
+    ? Number.NaN
+    : _ratio(gain.differential, gain.commonModeDifferential);
   const base = 1 + (2 * tailResistance) / reTotal;
   const loadMismatch = mirrorLoad ? Number.NaN : _ratio(base, loadDelta);
   const gmMismatch = mirrorLoad ? Number.NaN : _ratio(base, gmDelta);
@@ -209,8 +391,9 @@ export function _requirementChecks(
   requirements: PairRequirements,
   values: {
     range: PairInputCommonModeRange;
-    cmrrDb: number;
-    cmrrName: string;
+    cmrr: PairCmrr;
+    /** The output the CMRR requirement is judged on. */
+    output: PairOutput;
     worstCaseOffset: number;
     slew: PairSlew | undefined;
     linearInputRange: number;
@@ -236,7 +419,15 @@ export function _requirementChecks(
   }
   if (requirements.cmrrDb !== undefined) {
     requireFinite("requirements.cmrrDb", requirements.cmrrDb);
-    checks.push(atLeast(values.cmrrName, values.cmrrDb, requirements.cmrrDb, { unit: "dB" }));
+    const differential = values.output === "differential";
+    checks.push(
+      atLeast(
+        differential ? "CMRR (differential output)" : "CMRR (single-ended output)",
+        differential ? values.cmrr.differentialDb : values.cmrr.singleEndedDb,
+        requirements.cmrrDb,
+        { unit: "dB" },
+      ),
+    );
   }
   if (requirements.maxOffset !== undefined) {
     requireFinite("requirements.maxOffset", requirements.maxOffset);

@@ -18,6 +18,7 @@
  */
 import { requireFinite, requireNonNegative, requirePositive } from "../_validate.ts";
 import { atLeast, type CheckResult } from "../checks/check.ts";
+import { parallelUnchecked } from "../cascade/_fast.ts";
 import type { TwoPort } from "../cascade/two_port.ts";
 import { BOLTZMANN, DEFAULT_TEMPERATURE } from "../physics/constants.ts";
 import { shotNoiseDensity } from "../physics/noise.ts";
@@ -40,11 +41,21 @@ import {
   _linearRange,
   _mismatch,
   _normalizeTail,
+  _pairGain,
+  _pairNoise,
+  _pairOffset,
+  _pairOutput,
+  _pairPorts,
+  type _PairWords,
   _rails,
+  _requireBiasRoom,
   _requirementChecks,
+  _requireOptionsObject,
   _requirePositiveOrInfinite,
   _slew,
+  _tailHeadroom,
   _thirdHarmonic,
+  _unknownLoadKind,
 } from "./_pair_common.ts";
 import type {
   PairCmrr,
@@ -300,9 +311,7 @@ export function _bjtCore(options: BjtPairOptions): {
   temperature: number;
   mismatch: Required<BjtPairMismatch>;
 } {
-  if (options === null || typeof options !== "object") {
-    throw new TypeError(`Expected options to be an object, but found ${options}`);
-  }
+  _requireOptionsObject(options);
   const temperature = options.temperature ?? DEFAULT_TEMPERATURE;
   const vt = thermalVoltage(temperature);
   const rails = _rails(options.positiveRail, options.negativeRail, options.inputCommonMode);
@@ -344,11 +353,7 @@ export function _bjtCore(options: BjtPairOptions): {
       outputVoltage: load.outputVoltage,
     };
   } else {
-    throw new TypeError(
-      `Expected load.kind to be "resistors" or "mirror", but found ${
-        JSON.stringify((load as { kind?: unknown } | undefined)?.kind)
-      }`,
-    );
+    throw _unknownLoadKind(load);
   }
   const given = options.mismatch ?? {};
   const mismatch = {
@@ -394,9 +399,13 @@ export function _bjtParts(
   return { rc1, rc2, is1, is2, beta1, beta2 };
 }
 
-function show(value: number): string {
-  return String(Number(value.toPrecision(6)));
-}
+const BJT_WORDS: _PairWords = {
+  device: "Q",
+  output: "collector",
+  common: "emitter",
+  inputDrop: "VBE + IE·RE",
+  mirrorLimit: "the mirror's diode voltage plus VBE, so Q1's collector stays above its emitter",
+};
 
 /**
  * Designs and analyses a BJT long-tailed pair.
@@ -447,45 +456,22 @@ export function bjtPair(options: BjtPairOptions): BjtPairResult {
   const point = _bjtOperatingPoint(core, parts, current, vicm);
   const tail = core.tail;
 
-  // Bias that cannot work is an error; a bias that works badly is a failing check.
-  if (tail.kind !== "resistor" && !(point.emitterVoltage > core.negativeRail)) {
-    throw new RangeError(
-      `Expected inputCommonMode to be above ${
-        show(vicm - point.emitterVoltage + core.negativeRail)
-      } V (the negative rail plus VBE + IE·RE, so the tail has voltage across it), but found ${vicm}`,
-    );
-  }
+  _requireBiasRoom({
+    tail,
+    positiveRail: core.positiveRail,
+    negativeRail: core.negativeRail,
+    inputCommonMode: vicm,
+    tailVoltage: point.emitterVoltage,
+    load: core.load,
+    currents: [point.ic1, point.ic2],
+    resistors: [parts.rc1, parts.rc2],
+    firstOutputVoltage: point.vc1,
+  }, BJT_WORDS);
   const mirrorLoad = core.load.kind === "mirror";
-  if (core.load.kind === "resistors") {
-    for (const [index, ic, rc] of [[1, point.ic1, parts.rc1], [2, point.ic2, parts.rc2]]) {
-      const largest = (core.positiveRail - point.emitterVoltage) / ic;
-      if (!(rc < largest)) {
-        throw new RangeError(
-          `Expected load.resistance to be below ${show(largest / (rc / core.load.resistance))} Ω ` +
-            `(the largest that keeps Q${index}'s collector above its emitter at inputCommonMode = ` +
-            `${vicm} V), but found ${core.load.resistance}`,
-        );
-      }
-    }
-  } else if (!(point.vc1 > point.emitterVoltage)) {
-    throw new RangeError(
-      `Expected inputCommonMode to be below ${
-        show(point.vc1 + vicm - point.emitterVoltage)
-      } V (the mirror's diode voltage plus VBE, so Q1's collector stays above its emitter), ` +
-        `but found ${vicm}`,
-    );
-  }
 
   const network = _bjtNetwork(core, parts, point);
   const response = _solvePair(network, true);
-  const diff = response.differential;
-  const cm = response.commonMode;
-  const gain: PairGain = {
-    differential: mirrorLoad ? Number.NaN : diff.c2 - diff.c1,
-    singleEnded: diff.c2,
-    commonModeSingleEnded: cm.c2,
-    commonModeDifferential: mirrorLoad ? Number.NaN : cm.c2 - cm.c1,
-  };
+  const gain = _pairGain(response, mirrorLoad);
 
   // Nominal (average) small-signal values.
   const alpha = _alpha(core.beta);
@@ -498,12 +484,7 @@ export function bjtPair(options: BjtPairOptions): BjtPairResult {
   const gm2 = point.alpha2 / (vt / point.ie2 + re);
   const gmDelta = (gm1 - gm2) / (0.5 * (gm1 + gm2));
   const cmrr = _cmrr(
-    {
-      differential: gain.differential,
-      singleEnded: gain.singleEnded,
-      cmSingle: gain.commonModeSingleEnded,
-      cmDiff: gain.commonModeDifferential,
-    },
+    gain,
     tail.resistance,
     reTotal,
     mismatch.loadResistance,
@@ -521,14 +502,14 @@ export function bjtPair(options: BjtPairOptions): BjtPairResult {
   const ro4 = point.mirror
     ? _bjtOutputResistance(point.mirror.ic4, (core.load as { earlyVoltage: number }).earlyVoltage)
     : Number.NaN;
-  const parallel = (a: number, b: number) =>
-    a === Infinity ? b : b === Infinity ? a : (a * b) / (a + b);
   const mirrorBeta = core.load.kind === "mirror" ? core.load.beta : Infinity;
   const estimates: BjtPairEstimates = {
     differentialGain: mirrorLoad ? Number.NaN : (alpha * rc) / reTotal,
     commonModeGain: mirrorLoad ? Number.NaN : (-alpha * rc) / (reTotal + 2 * tail.resistance),
     cmrrSingleEnded: mirrorLoad ? Number.NaN : (reTotal + 2 * tail.resistance) / (2 * reTotal),
-    activeLoadGain: mirrorLoad ? effectiveTransconductance * parallel(rout2, ro4) : Number.NaN,
+    activeLoadGain: mirrorLoad
+      ? effectiveTransconductance * parallelUnchecked(rout2, ro4)
+      : Number.NaN,
     systematicOffset: mirrorLoad ? (2 * vt) / mirrorBeta : 0,
   };
 
@@ -542,13 +523,11 @@ export function bjtPair(options: BjtPairOptions): BjtPairResult {
     beta: re * ie * alphaDelta,
     systematic: -scale * mirrorError,
   };
-  const random = [sources.loadResistance, sources.saturationCurrent, sources.beta];
-  const offset: PairOffset = {
+  const offset = _pairOffset(
     sources,
-    rss: Math.hypot(...random),
-    worstCase: random.reduce((sum, x) => sum + Math.abs(x), Math.abs(sources.systematic)),
-    exact: _bjtExactOffset(core, parts, point),
-  };
+    [sources.loadResistance, sources.saturationCurrent, sources.beta],
+    _bjtExactOffset(core, parts, point),
+  );
 
   const inputBiasCurrent = 0.5 * (point.ib1 + point.ib2);
   const nominalBase = core.beta === Infinity ? 0 : ie / (core.beta + 1);
@@ -607,12 +586,10 @@ export function bjtPair(options: BjtPairOptions): BjtPairResult {
   const rb = options.baseResistance ?? 0;
   requireNonNegative("baseResistance", rb, "Ω");
   const fourKT = 4 * BOLTZMANN * temperature;
-  const deviceVoltageDensity = Math.sqrt(fourKT * (rb + 1 / (2 * gm) + re));
-  const noise: PairNoise = {
-    deviceVoltageDensity,
-    voltageDensity: Math.SQRT2 * deviceVoltageDensity,
-    currentDensity: shotNoiseDensity(inputBiasCurrent),
-  };
+  const noise = _pairNoise(
+    Math.sqrt(fourKT * (rb + 1 / (2 * gm) + re)),
+    shotNoiseDensity(inputBiasCurrent),
+  );
 
   const slew = _slew(
     options.compensationCapacitance,
@@ -630,34 +607,20 @@ export function bjtPair(options: BjtPairOptions): BjtPairResult {
       (2 * vt) / 5 / fullScale,
     );
 
-  const output = options.output ?? "singleEnded";
-  if (output !== "singleEnded" && output !== "differential") {
-    throw new TypeError(
-      `Expected output to be "singleEnded" or "differential", but found ${JSON.stringify(output)}`,
-    );
-  }
-  if (output === "differential" && mirrorLoad) {
-    throw new RangeError(
-      `Expected output to be "singleEnded" with a mirror load (it has one output), but found "differential"`,
-    );
-  }
+  const output = _pairOutput(options.output, mirrorLoad);
+  const cm = response.commonMode;
   const inputResistance: PairInputResistance = {
-    differential: 1 / diff.ib1,
+    differential: 1 / response.differential.ib1,
     commonModePerInput: 1 / cm.ib1,
     commonModeTied: 1 / (cm.ib1 + cm.ib2),
   };
-  const outputResistance: PairOutputResistance = {
-    singleEnded: response.outputResistance,
-    differential: mirrorLoad ? Number.NaN : response.differentialOutputResistance,
-  };
-  const twoPort: TwoPort = {
+  const { outputResistance, twoPort } = _pairPorts(response, {
     name: options.name ?? "BJT input pair",
+    output,
+    mirrorLoad,
+    gain,
     inputResistance: inputResistance.differential,
-    openCircuitGain: output === "differential" ? gain.differential : gain.singleEnded,
-    outputResistance: output === "differential"
-      ? outputResistance.differential
-      : outputResistance.singleEnded,
-  };
+  });
 
   const devices = [1, 2].map((index): BjtPairDevice => {
     const first = index === 1;
@@ -692,20 +655,15 @@ export function bjtPair(options: BjtPairOptions): BjtPairResult {
       { unit: "V" },
     )
   );
-  const tailHeadroom = tail.kind === "resistor"
-    ? Number.NaN
-    : point.emitterVoltage - core.negativeRail - tail.compliance;
+  const tailHeadroom = _tailHeadroom(tail, point.emitterVoltage, core.negativeRail);
   if (tail.kind !== "resistor") {
     checks.push(atLeast("tail source headroom", tailHeadroom, 0, { unit: "V" }));
   }
-  const cmrrDb = output === "differential" ? cmrr.differentialDb : cmrr.singleEndedDb;
   checks.push(
     ..._requirementChecks(requirements, {
       range: inputCommonModeRange,
-      cmrrDb,
-      cmrrName: output === "differential"
-        ? "CMRR (differential output)"
-        : "CMRR (single-ended output)",
+      cmrr,
+      output,
       worstCaseOffset: offset.worstCase,
       slew,
       linearInputRange,

@@ -5,20 +5,7 @@
  *
  * @module
  */
-export type {
-  PairCmrr,
-  PairGain,
-  PairInputCommonModeRange,
-  PairInputResistance,
-  PairNoise,
-  PairOffset,
-  PairOutput,
-  PairOutputResistance,
-  PairRequirements,
-  PairSlew,
-  PairTail,
-  PairThirdHarmonic,
-} from "./pair_types.ts";
+export * from "./pair_types.ts";
 export {
   bjtPair,
   type BjtPairDevice,

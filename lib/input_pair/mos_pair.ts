@@ -18,6 +18,7 @@
  */
 import { requireFinite, requireNonNegative, requirePositive } from "../_validate.ts";
 import { atLeast, type CheckResult } from "../checks/check.ts";
+import { parallelUnchecked } from "../cascade/_fast.ts";
 import type { TwoPort } from "../cascade/two_port.ts";
 import { BOLTZMANN, DEFAULT_TEMPERATURE } from "../physics/constants.ts";
 import { weakInversionOverdrive } from "../devices/mosfet.ts";
@@ -37,10 +38,21 @@ import {
   _linearRange,
   _mismatch,
   _normalizeTail,
+  _pairGain,
+  _pairNoise,
+  _pairOffset,
+  _pairOutput,
+  _pairPorts,
+  type _PairWords,
   _rails,
+  _requireBiasRoom,
   _requirementChecks,
+  _requireOptionsObject,
+  _show,
   _slew,
+  _tailHeadroom,
   _thirdHarmonic,
+  _unknownLoadKind,
 } from "./_pair_common.ts";
 import type {
   PairCmrr,
@@ -260,9 +272,7 @@ export function _mosCore(options: MosPairOptions): {
   temperature: number;
   mismatch: Required<MosPairMismatch>;
 } {
-  if (options === null || typeof options !== "object") {
-    throw new TypeError(`Expected options to be an object, but found ${options}`);
-  }
+  _requireOptionsObject(options);
   const temperature = options.temperature ?? DEFAULT_TEMPERATURE;
   requirePositive("temperature", temperature, "K");
   const rails = _rails(options.positiveRail, options.negativeRail, options.inputCommonMode);
@@ -291,11 +301,7 @@ export function _mosCore(options: MosPairOptions): {
       outputVoltage: load.outputVoltage,
     };
   } else {
-    throw new TypeError(
-      `Expected load.kind to be "resistors" or "mirror", but found ${
-        JSON.stringify((load as { kind?: unknown } | undefined)?.kind)
-      }`,
-    );
+    throw _unknownLoadKind(load);
   }
   const given = options.mismatch ?? {};
   const thresholdMismatch = given.threshold ?? 0;
@@ -332,9 +338,13 @@ export function _mosParts(core: _MosCore, mismatch: Required<MosPairMismatch>): 
   };
 }
 
-function show(value: number): string {
-  return String(Number(value.toPrecision(6)));
-}
+const MOS_WORDS: _PairWords = {
+  device: "M",
+  output: "drain",
+  common: "source",
+  inputDrop: "VGS + Id·RS",
+  mirrorLimit: "so M1's drain stays above its source under the mirror's diode",
+};
 
 /**
  * Designs and analyses a MOSFET long-tailed pair (long-channel square law).
@@ -377,50 +387,29 @@ export function mosPair(options: MosPairOptions): MosPairResult {
   if (!(current > 0)) {
     throw new RangeError(
       `Expected inputCommonMode to be above the negative rail plus Vt (${
-        show(core.negativeRail + core.threshold)
+        _show(core.negativeRail + core.threshold)
       } V) so the tail resistor carries current, but found ${vicm}`,
     );
   }
   const parts = _mosParts(core, mismatch);
   const point = _mosOperatingPoint(core, parts, current, vicm);
   const tail = core.tail;
-  if (tail.kind !== "resistor" && !(point.sourceVoltage > core.negativeRail)) {
-    throw new RangeError(
-      `Expected inputCommonMode to be above ${
-        show(vicm - point.sourceVoltage + core.negativeRail)
-      } V (the negative rail plus VGS + Id·RS, so the tail has voltage across it), but found ${vicm}`,
-    );
-  }
+  _requireBiasRoom({
+    tail,
+    positiveRail: core.positiveRail,
+    negativeRail: core.negativeRail,
+    inputCommonMode: vicm,
+    tailVoltage: point.sourceVoltage,
+    load: core.load,
+    currents: [point.id1, point.id2],
+    resistors: [parts.rd1, parts.rd2],
+    firstOutputVoltage: point.vd1,
+  }, MOS_WORDS);
   const mirrorLoad = core.load.kind === "mirror";
-  if (core.load.kind === "resistors") {
-    for (const [index, id, rd] of [[1, point.id1, parts.rd1], [2, point.id2, parts.rd2]]) {
-      const largest = (core.positiveRail - point.sourceVoltage) / id;
-      if (!(rd < largest)) {
-        throw new RangeError(
-          `Expected load.resistance to be below ${show(largest / (rd / core.load.resistance))} Ω ` +
-            `(the largest that keeps M${index}'s drain above its source at inputCommonMode = ` +
-            `${vicm} V), but found ${core.load.resistance}`,
-        );
-      }
-    }
-  } else if (!(point.vd1 > point.sourceVoltage)) {
-    throw new RangeError(
-      `Expected inputCommonMode to be below ${
-        show(point.vd1 + vicm - point.sourceVoltage)
-      } V (so M1's drain stays above its source under the mirror's diode), but found ${vicm}`,
-    );
-  }
 
   const network = _mosNetwork(core, parts, point);
   const response = _solvePair(network, true);
-  const diff = response.differential;
-  const cm = response.commonMode;
-  const gain: PairGain = {
-    differential: mirrorLoad ? Number.NaN : diff.c2 - diff.c1,
-    singleEnded: diff.c2,
-    commonModeSingleEnded: cm.c2,
-    commonModeDifferential: mirrorLoad ? Number.NaN : cm.c2 - cm.c1,
-  };
+  const gain = _pairGain(response, mirrorLoad);
 
   const kn = core.transconductanceParameter;
   const overdrive = Math.sqrt(current / kn);
@@ -430,12 +419,7 @@ export function mosPair(options: MosPairOptions): MosPairResult {
   const g1 = 1 / (1 / network.q1.gm + rs);
   const g2 = 1 / (1 / network.q2.gm + rs);
   const cmrr = _cmrr(
-    {
-      differential: gain.differential,
-      singleEnded: gain.singleEnded,
-      cmSingle: gain.commonModeSingleEnded,
-      cmDiff: gain.commonModeDifferential,
-    },
+    gain,
     tail.resistance,
     1 / nominalGm + rs,
     mismatch.loadResistance,
@@ -444,8 +428,6 @@ export function mosPair(options: MosPairOptions): MosPairResult {
   );
 
   const rd = core.load.kind === "resistors" ? core.load.resistance : Number.NaN;
-  const parallel = (a: number, b: number) =>
-    a === Infinity ? b : b === Infinity ? a : (a * b) / (a + b);
   const ro2 = 1 / network.q2.go;
   const rout2 = ro2 + rs * (1 + network.q2.gm * ro2);
   const rsum = 2 * effectiveTransconductance * tail.resistance;
@@ -455,9 +437,9 @@ export function mosPair(options: MosPairOptions): MosPairResult {
   if (network.load.kind === "mirror") {
     const ro4 = 1 / network.load.q4.go;
     const gm3 = network.load.q3.gm;
-    activeLoadGain = effectiveTransconductance * parallel(rout2, ro4);
+    activeLoadGain = effectiveTransconductance * parallelUnchecked(rout2, ro4);
     activeLoadCommonModeGain = 1 / (2 * gm3 * tail.resistance);
-    activeLoadCmrr = (1 + rsum) * gm3 * parallel(rout2, ro4);
+    activeLoadCmrr = (1 + rsum) * gm3 * parallelUnchecked(rout2, ro4);
   }
   const estimates: MosPairEstimates = {
     differentialGain: mirrorLoad ? Number.NaN : effectiveTransconductance * rd,
@@ -476,13 +458,11 @@ export function mosPair(options: MosPairOptions): MosPairResult {
     aspectRatio: (overdrive / 2) * mismatch.aspectRatio,
     systematic: -scale * mirrorError,
   };
-  const random = [sources.loadResistance, sources.threshold, sources.aspectRatio];
-  const offset: PairOffset = {
+  const offset = _pairOffset(
     sources,
-    rss: Math.hypot(...random),
-    worstCase: random.reduce((sum, x) => sum + Math.abs(x), Math.abs(sources.systematic)),
-    exact: _mosExactOffset(core, parts, point),
-  };
+    [sources.loadResistance, sources.threshold, sources.aspectRatio],
+    _mosExactOffset(core, parts, point),
+  );
 
   // Input common-mode range (VGS + Id·RS held at its operating-point value).
   const drop = Math.max(
@@ -528,12 +508,7 @@ export function mosPair(options: MosPairOptions): MosPairResult {
   const gamma = options.noiseFactor ?? 2 / 3;
   requirePositive("noiseFactor", gamma);
   const fourKT = 4 * BOLTZMANN * temperature;
-  const deviceVoltageDensity = Math.sqrt(fourKT * (gamma / gm + rs));
-  const noise: PairNoise = {
-    deviceVoltageDensity,
-    voltageDensity: Math.SQRT2 * deviceVoltageDensity,
-    currentDensity: 0,
-  };
+  const noise = _pairNoise(Math.sqrt(fourKT * (gamma / gm + rs)), 0);
 
   const slew = _slew(
     options.compensationCapacitance,
@@ -550,34 +525,19 @@ export function mosPair(options: MosPairOptions): MosPairResult {
       (7 * overdrive) / 128 / fullScale,
     );
 
-  const output = options.output ?? "singleEnded";
-  if (output !== "singleEnded" && output !== "differential") {
-    throw new TypeError(
-      `Expected output to be "singleEnded" or "differential", but found ${JSON.stringify(output)}`,
-    );
-  }
-  if (output === "differential" && mirrorLoad) {
-    throw new RangeError(
-      `Expected output to be "singleEnded" with a mirror load (it has one output), but found "differential"`,
-    );
-  }
+  const output = _pairOutput(options.output, mirrorLoad);
   const inputResistance: PairInputResistance = {
     differential: Infinity,
     commonModePerInput: Infinity,
     commonModeTied: Infinity,
   };
-  const outputResistance: PairOutputResistance = {
-    singleEnded: response.outputResistance,
-    differential: mirrorLoad ? Number.NaN : response.differentialOutputResistance,
-  };
-  const twoPort: TwoPort = {
+  const { outputResistance, twoPort } = _pairPorts(response, {
     name: options.name ?? "MOS input pair",
+    output,
+    mirrorLoad,
+    gain,
     inputResistance: Infinity,
-    openCircuitGain: output === "differential" ? gain.differential : gain.singleEnded,
-    outputResistance: output === "differential"
-      ? outputResistance.differential
-      : outputResistance.singleEnded,
-  };
+  });
 
   const devices = [1, 2].map((index): MosPairDevice => {
     const first = index === 1;
@@ -605,9 +565,7 @@ export function mosPair(options: MosPairOptions): MosPairResult {
   const checks: CheckResult[] = devices.map((device, i) =>
     atLeast(`M${i + 1} saturated (Vds − Vov)`, device.headroom, headroomWanted, { unit: "V" })
   );
-  const tailHeadroom = tail.kind === "resistor"
-    ? Number.NaN
-    : point.sourceVoltage - core.negativeRail - tail.compliance;
+  const tailHeadroom = _tailHeadroom(tail, point.sourceVoltage, core.negativeRail);
   if (tail.kind !== "resistor") {
     checks.push(atLeast("tail source headroom", tailHeadroom, 0, { unit: "V" }));
   }
@@ -623,10 +581,8 @@ export function mosPair(options: MosPairOptions): MosPairResult {
   checks.push(
     ..._requirementChecks(requirements, {
       range: inputCommonModeRange,
-      cmrrDb: output === "differential" ? cmrr.differentialDb : cmrr.singleEndedDb,
-      cmrrName: output === "differential"
-        ? "CMRR (differential output)"
-        : "CMRR (single-ended output)",
+      cmrr,
+      output,
       worstCaseOffset: offset.worstCase,
       slew,
       linearInputRange,

@@ -21,6 +21,7 @@
  */
 import { requireNonNegative, requirePositive } from "../_validate.ts";
 import { atLeast, type CheckResult } from "../checks/check.ts";
+import { parallelUnchecked } from "../cascade/_fast.ts";
 import { requirePositiveOrInfinite } from "../cascade/_require.ts";
 import type { TwoPort } from "../cascade/two_port.ts";
 import { DEFAULT_TEMPERATURE } from "../physics/constants.ts";
@@ -105,15 +106,14 @@ export interface FollowerStage {
   checks: CheckResult[];
 }
 
-function parallel(a: number, b: number): number {
-  if (a === Infinity) return b;
-  if (b === Infinity) return a;
-  return (a * b) / (a + b);
-}
-
 interface FollowerCore {
   name: string;
   beta: number;
+  /**
+   * Share of the emitter (source) current the output keeps: 1 for a BJT, gm/(gm + gmb) for a
+   * MOSFET with body effect. It scales every gain, not the resistances.
+   */
+  gainShare: number;
   emitterResistanceOfDevice: number;
   emitterLoad: number;
   loadResistance: number;
@@ -126,18 +126,18 @@ function followerFigures(x: FollowerCore): Omit<FollowerStage, "operatingPoint" 
   const re = x.emitterResistanceOfDevice;
   const k = x.beta + 1;
   const z = x.emitterLoad;
-  const zl = parallel(z, x.loadResistance);
+  const zl = parallelUnchecked(z, x.loadResistance);
   const inputResistance = k === Infinity ? Infinity : k * (re + zl);
-  const openCircuitGain = z === Infinity ? 1 : z / (z + re);
-  const gain = zl === Infinity ? 1 : zl / (zl + re);
+  const openCircuitGain = (z === Infinity ? 1 : z / (z + re)) * x.gainShare;
+  const gain = (zl === Infinity ? 1 : zl / (zl + re)) * x.gainShare;
   const reflected = k === Infinity ? 0 : x.drivingResistance / k;
-  const sourceGain = zl === Infinity ? 1 : zl / (zl + re + reflected);
-  const outputResistance = parallel(reflected + re, z);
+  const sourceGain = (zl === Infinity ? 1 : zl / (zl + re + reflected)) * x.gainShare;
+  const outputResistance = parallelUnchecked(reflected + re, z);
   const twoPort: TwoPort = {
     name: x.name,
     inputResistance,
     openCircuitGain,
-    outputResistance: parallel(re, z),
+    outputResistance: parallelUnchecked(re, z),
   };
   const rl = x.loadResistance;
   const checks: CheckResult[] = [
@@ -221,8 +221,9 @@ export function emitterFollowerStage(options: EmitterFollowerStageOptions): Foll
     ...followerFigures({
       name: options.name ?? "emitter follower",
       beta,
+      gainShare: 1,
       emitterResistanceOfDevice: re,
-      emitterLoad: parallel(rE, ro),
+      emitterLoad: parallelUnchecked(rE, ro),
       loadResistance: rl,
       drivingResistance: rs,
       minimumInputResistance: options.minimumInputResistance,
@@ -303,19 +304,6 @@ export function sourceFollowerStage(options: SourceFollowerStageOptions): Follow
   // open-circuit gain gm·Z/(1 + (gm + gmb)Z) is Z'/(Z' + 1/(gm + gmb)) times gm/(gm + gmb).
   const rSource = 1 / (gm * (1 + chi));
   const share = 1 / (1 + chi);
-  const figures = followerFigures({
-    name: options.name ?? "source follower",
-    beta: Infinity,
-    emitterResistanceOfDevice: rSource,
-    emitterLoad: parallel(rS, ro),
-    loadResistance: rl,
-    drivingResistance: 0,
-  });
-  const checks = figures.checks;
-  if (options.minimumGain !== undefined) {
-    requirePositive("minimumGain", options.minimumGain);
-    checks.push(atLeast("follower gain", figures.sourceGain * share, options.minimumGain));
-  }
   return {
     operatingPoint: { current: id, inputCurrent: 0 },
     smallSignal: {
@@ -323,11 +311,15 @@ export function sourceFollowerStage(options: SourceFollowerStageOptions): Follow
       emitterResistanceOfDevice: rSource,
       outputResistanceOfDevice: ro,
     },
-    ...figures,
-    openCircuitGain: figures.openCircuitGain * share,
-    gain: figures.gain * share,
-    sourceGain: figures.sourceGain * share,
-    twoPort: { ...figures.twoPort, openCircuitGain: figures.twoPort.openCircuitGain * share },
-    checks,
+    ...followerFigures({
+      name: options.name ?? "source follower",
+      beta: Infinity,
+      gainShare: share,
+      emitterResistanceOfDevice: rSource,
+      emitterLoad: parallelUnchecked(rS, ro),
+      loadResistance: rl,
+      drivingResistance: 0,
+      minimumGain: options.minimumGain,
+    }),
   };
 }

@@ -22,6 +22,7 @@ import { encodeLine } from "../../kernel/sandbox/protocol.ts";
 import { type NotebookRun, runNotebook } from "../../kernel/session/run_notebook.ts";
 import { assert } from "../_assert.ts";
 import { longtail, ROOT } from "../corpus/_cli.ts";
+import { findProcesses, longtailCommand, SANDBOX_CHILD } from "./_processes.ts";
 
 const DRIVER = `${ROOT}/tests/sandbox/_record_driver.ts`;
 const KILLS = 200;
@@ -223,23 +224,10 @@ Deno.test("the real `longtail record`, killed at random moments, leaves the note
     for (let i = 0; i < CLI_KILLS; i++) {
       const before = await Deno.readFile(path);
       const isA = sameBytes(before, texts[1]);
-      const child = new Deno.Command(Deno.execPath(), {
-        args: [
-          "run",
-          "--quiet",
-          "--config",
-          `${ROOT}/deno.json`,
-          "-A",
-          `${ROOT}/kernel/cli/main.ts`,
-          "record",
-          "--quiet",
-          path,
-          ...(isA ? settings[1] : settings[0]),
-        ],
-        stdin: "null",
-        stdout: "null",
-        stderr: "null",
-      }).spawn();
+      const child = longtailCommand(
+        ["record", "--quiet", path, ...(isA ? settings[1] : settings[0])],
+        { stdin: "null", stdout: "null", stderr: "null" },
+      ).spawn();
       const delay = typical * (0.3 + 0.9 * random());
       const timer = setTimeout(() => {
         try {
@@ -271,18 +259,9 @@ Deno.test("the real `longtail record`, killed at random moments, leaves the note
 /** Sandbox processes working in `dir` (Linux /proc; elsewhere none are found). */
 async function sandboxesIn(dir: string): Promise<number[]> {
   if (Deno.build.os !== "linux") return [];
-  const found: number[] = [];
   const real = await Deno.realPath(dir);
-  for await (const entry of Deno.readDir("/proc")) {
-    if (!/^\d+$/.test(entry.name)) continue;
-    try {
-      const cmdline = await Deno.readTextFile(`/proc/${entry.name}/cmdline`);
-      if (!cmdline.includes("kernel/sandbox/child.ts")) continue;
-      const cwd = await Deno.readLink(`/proc/${entry.name}/cwd`);
-      if (cwd.startsWith(real)) found.push(Number(entry.name));
-    } catch {
-      // Gone meanwhile.
-    }
-  }
-  return found;
+  return await findProcesses(
+    SANDBOX_CHILD,
+    async (pid) => (await Deno.readLink(`/proc/${pid}/cwd`)).startsWith(real) ? pid : undefined,
+  );
 }

@@ -10,6 +10,7 @@
  */
 import { assert } from "../_assert.ts";
 import { longtail, ROOT } from "../corpus/_cli.ts";
+import { findProcesses, longtailCommand, SANDBOX_CHILD } from "./_processes.ts";
 
 const FIXTURES = `${ROOT}/tests/sandbox/fixtures`;
 
@@ -154,18 +155,7 @@ Deno.test({
         'const bench = Deno.env.get("LONGTAIL_BENCH_ID");\nbench\n' +
         "```\n",
     );
-    const child = new Deno.Command(Deno.execPath(), {
-      args: [
-        "run",
-        "--quiet",
-        "--config",
-        `${ROOT}/deno.json`,
-        "-A",
-        `${ROOT}/kernel/cli/main.ts`,
-        "run",
-        "--allow-env=LONGTAIL_BENCH_ID",
-        notebook,
-      ],
+    const child = longtailCommand(["run", "--allow-env=LONGTAIL_BENCH_ID", notebook], {
       env: { NO_COLOR: "1", LONGTAIL_SECRET_TOKEN: "hunter2", LONGTAIL_BENCH_ID: "bench-7" },
       stdout: "piped",
       stderr: "piped",
@@ -202,19 +192,12 @@ Deno.test({
 
 /** The environment of the sandbox process working in `dir`, read from /proc (Linux). */
 async function sandboxEnvironment(dir: string): Promise<string[] | undefined> {
-  for await (const entry of Deno.readDir("/proc")) {
-    if (!/^\d+$/.test(entry.name)) continue;
-    try {
-      const cmdline = await Deno.readTextFile(`/proc/${entry.name}/cmdline`);
-      if (!cmdline.includes("kernel/sandbox/child.ts")) continue;
-      if ((await Deno.realPath(`/proc/${entry.name}/cwd`)) !== (await Deno.realPath(dir))) continue;
-      const environ = await Deno.readTextFile(`/proc/${entry.name}/environ`);
-      return environ.split("\0").filter((item) => item !== "");
-    } catch {
-      // The process ended meanwhile, or is not ours to read.
-    }
-  }
-  return undefined;
+  const environments = await findProcesses(SANDBOX_CHILD, async (pid) => {
+    if ((await Deno.realPath(`/proc/${pid}/cwd`)) !== (await Deno.realPath(dir))) return undefined;
+    const environ = await Deno.readTextFile(`/proc/${pid}/environ`);
+    return environ.split("\0").filter((item) => item !== "");
+  });
+  return environments[0];
 }
 
 Deno.test("an endless loop is stopped at the time limit by killing its process; the next cell runs", async () => {
@@ -336,19 +319,11 @@ Deno.test("record refuses to overwrite a notebook that changed on disk while its
 
 /** Processes whose parent is `pid` and whose command line mentions `text` (Linux /proc). */
 async function childrenOf(pid: number, text: string): Promise<number[]> {
-  const found: number[] = [];
-  for await (const entry of Deno.readDir("/proc")) {
-    if (!/^\d+$/.test(entry.name)) continue;
-    try {
-      const stat = await Deno.readTextFile(`/proc/${entry.name}/stat`);
-      const parent = Number(stat.slice(stat.lastIndexOf(")") + 2).split(" ")[1]);
-      const cmdline = await Deno.readTextFile(`/proc/${entry.name}/cmdline`);
-      if (parent === pid && cmdline.includes(text)) found.push(Number(entry.name));
-    } catch {
-      // Gone meanwhile.
-    }
-  }
-  return found;
+  return await findProcesses(text, async (child) => {
+    const stat = await Deno.readTextFile(`/proc/${child}/stat`);
+    const parent = Number(stat.slice(stat.lastIndexOf(")") + 2).split(" ")[1]);
+    return parent === pid ? child : undefined;
+  });
 }
 
 Deno.test({
@@ -356,19 +331,7 @@ Deno.test({
     "a looping sandbox ends when longtail itself is killed, instead of spinning on as an orphan",
   ignore: Deno.build.os !== "linux", // It finds the processes through /proc.
 }, async () => {
-  const host = new Deno.Command(Deno.execPath(), {
-    args: [
-      "run",
-      "--quiet",
-      "--config",
-      `${ROOT}/deno.json`,
-      "-A",
-      `${ROOT}/kernel/cli/main.ts`,
-      "run",
-      "--timeout",
-      "60",
-      `${FIXTURES}/endless_loop.md`,
-    ],
+  const host = longtailCommand(["run", "--timeout", "60", `${FIXTURES}/endless_loop.md`], {
     stdin: "null",
     stdout: "null",
     stderr: "null",
@@ -376,7 +339,7 @@ Deno.test({
   let sandbox: number[] = [];
   for (let tries = 0; tries < 100 && sandbox.length === 0; tries++) {
     await new Promise((resolve) => setTimeout(resolve, 100));
-    sandbox = await childrenOf(host.pid, "kernel/sandbox/child.ts");
+    sandbox = await childrenOf(host.pid, SANDBOX_CHILD);
   }
   assert.equal(sandbox.length, 1, "the sandbox process started");
   await new Promise((resolve) => setTimeout(resolve, 500)); // Let the cell start looping.
