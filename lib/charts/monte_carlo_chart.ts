@@ -199,7 +199,8 @@ export function monteCarloChart(
   const title = options.title ?? "Monte Carlo spread";
   return new Chart({
     title,
-    description: `${title} of ${label}: ${yieldText}; ${requirementText}`,
+    // A given title already names the quantity; the default one needs the label.
+    description: `${options.title ?? `${title} of ${label}`}: ${yieldText}; ${requirementText}`,
     width: options.width,
     notes: [
       `${requirementText[0].toUpperCase()}${requirementText.slice(1)}, ${n} trials.` +
