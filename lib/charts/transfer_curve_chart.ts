@@ -172,7 +172,9 @@ export function transferCurveChart(
     : formatSi(gain, gainUnit, { digits: 4 });
   return new Chart({
     title,
-    description: `${title}: ${outputLabel} against ${inputLabel}, ideal slope ${gainText}; ` +
+    // A given title already says what is plotted; the default one needs the axes named.
+    description: `${options.title ?? `${title}: ${outputLabel} against ${inputLabel}`}, ` +
+      `ideal slope ${gainText}; ` +
       `worst error ${show(worst.error, outputUnit)} at ${show(worst.input, inputUnit)}` +
       (limit === undefined ? "" : ` (limit ±${show(limit, outputUnit)})`),
     width: options.width,
