@@ -4,7 +4,8 @@
  *
  *     ```recorded
  *     38.2 dB                                   ← the cell's shown value, as text
- *     · tailCurrent = 0.002                      ← a number, by name (6 significant digits)
+ *     · tailCurrent = 0.002 (2 mA)               ← a number, by name (6 significant digits;
+ *                                                  an adjustable value's unit in brackets)
  *     ✓ phase margin = 61.1° is at least 45° (margin 16.1°)   ← a design check that passed
  *     ✗ junction temperature = 131 °C is not at most 125 °C (short by 6 °C)
  *     ! TypeError: x is not a function          ← a failure, recorded only with --force
@@ -18,7 +19,7 @@
 /** One recorded item. */
 export type RecordedEntry =
   | { kind: "text"; text: string }
-  | { kind: "number"; name: string; value: number }
+  | { kind: "number"; name: string; value: number; shown?: string }
   | { kind: "check"; pass: boolean; text: string }
   | { kind: "problem"; text: string };
 
@@ -75,7 +76,12 @@ export function recordedLines(entries: readonly RecordedEntry[]): string[] {
         }
         break;
       case "number":
-        lines.push(`${NUMBER_MARK}${entry.name} = ${formatRecordedNumber(entry.value)}`);
+        // `shown` (the value with its unit, for adjustable values) is for the reader; the
+        // number before it is what verify compares.
+        lines.push(
+          `${NUMBER_MARK}${entry.name} = ${formatRecordedNumber(entry.value)}` +
+            (entry.shown === undefined ? "" : ` (${oneLine(entry.shown)})`),
+        );
         break;
       case "check":
         lines.push((entry.pass ? PASS_MARK : FAIL_MARK) + oneLine(entry.text));
@@ -101,6 +107,7 @@ export function recordedLines(entries: readonly RecordedEntry[]): string[] {
  * const entries = [
  *   { kind: "text" as const, text: "{ gain: 12.5 }\n· not a number line" },
  *   { kind: "number" as const, name: "pair.gm", value: 0.0386 },
+ *   { kind: "number" as const, name: "tailCurrent", value: 0.002, shown: "2 mA" },
  *   { kind: "check" as const, pass: false, text: "Tj = 131 °C is not at most 125 °C" },
  * ];
  * deepEqual(parseRecorded(recordedLines(entries).join("\n") + "\n"), entries);
@@ -115,8 +122,16 @@ export function parseRecorded(content: string): RecordedEntry[] {
     if (line.startsWith(NUMBER_MARK)) {
       const body = line.slice(NUMBER_MARK.length);
       const at = body.lastIndexOf(" = ");
-      const value = at < 0 ? Number.NaN : Number(body.slice(at + 3));
-      entries.push({ kind: "number", name: at < 0 ? body : body.slice(0, at), value });
+      const rest = at < 0 ? "" : body.slice(at + 3);
+      const open = rest.indexOf(" (");
+      const value = at < 0 ? Number.NaN : Number(open < 0 ? rest : rest.slice(0, open));
+      const entry: RecordedEntry = {
+        kind: "number",
+        name: at < 0 ? body : body.slice(0, at),
+        value,
+      };
+      if (open >= 0 && rest.endsWith(")")) entry.shown = rest.slice(open + 2, -1);
+      entries.push(entry);
     } else if (line.startsWith(PASS_MARK) || line.startsWith(FAIL_MARK)) {
       entries.push({ kind: "check", pass: line.startsWith(PASS_MARK), text: line.slice(2) });
     } else if (line.startsWith(PROBLEM_MARK)) {

@@ -7,6 +7,7 @@
  *
  * @module
  */
+import { formatQuantity } from "../_format.ts";
 import type { RecordedEntry } from "../notebook/recorded_block.ts";
 import type { CellState } from "../session/events.ts";
 
@@ -100,7 +101,15 @@ export function cellEntries(
       }
     }
     for (const record of state.outcome.records) {
-      entries.push({ kind: "number", name: record.name, value: record.value });
+      const unit = state.outcome.adjustables.find((a) => a.name === record.name)?.unit ?? "";
+      entries.push(
+        unit === "" ? { kind: "number", name: record.name, value: record.value } : {
+          kind: "number",
+          name: record.name,
+          value: record.value,
+          shown: formatQuantity(record.value, unit),
+        },
+      );
     }
     for (const check of state.outcome.checks) {
       entries.push({ kind: "check", pass: check.pass, text: check.reason || check.name });
