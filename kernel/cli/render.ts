@@ -10,7 +10,7 @@ import { runNotebookForReport } from "../report/report_run.ts";
 import { writeFileAtomic } from "../record/write_files.ts";
 import { absolutePath, basename, dirname } from "../_paths.ts";
 import { parseSettings, readNotebookFile, relativeToCwd, UsageError } from "./_common.ts";
-import { SANDBOX_ARGS, SANDBOX_HELP, sandboxSettings } from "./_sandbox_options.ts";
+import { grantsLine, SANDBOX_ARGS, SANDBOX_HELP, sandboxSettings } from "./_sandbox_options.ts";
 import type { CliIo } from "./_terminal.ts";
 
 /** Help text of `render`. */
@@ -70,6 +70,7 @@ export async function renderCommand(args: string[], io: CliIo): Promise<number> 
   const { text } = await readNotebookFile(path);
   const settings = parseSettings(values.set ?? [], text, path);
   const sandbox = sandboxSettings(values);
+  io.out(grantsLine(sandbox));
   const { source, run } = await runNotebookForReport(path, text, { values: settings, ...sandbox });
   const html = renderReport({ ...source, path: relativeToCwd(path) }, run);
   await Deno.mkdir(dirname(output), { recursive: true });
