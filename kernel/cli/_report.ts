@@ -4,6 +4,7 @@
  * @module
  */
 import type { NotebookRun } from "../session/run_notebook.ts";
+import type { CellState } from "../session/events.ts";
 import type { CheckRecord } from "../sandbox/protocol.ts";
 import type { NotebookVerdict } from "../record/verify_notebook.ts";
 import type { TypeProblem } from "../compile/type_check.ts";
@@ -27,74 +28,7 @@ export function printRun(io: CliIo, run: NotebookRun, relativePath: string): voi
       const heading = headings.shift()!;
       io.out(`\n${paint(io, "bold", `${"#".repeat(heading.level)} ${heading.text}`)}\n`);
     }
-    const state = run.states[i];
-    const where = `cell ${cell.index + 1} · line ${cell.place.startLine + 1}`;
-    if (state.status === "done") {
-      const ms = state.outcome ? ` · ${formatMs(state.outcome.durationMs)}` : "";
-      io.out(`\n${paint(io, "green", "✓")} ${paint(io, "gray", where + ms)}\n`);
-    } else if (state.status === "failed") {
-      io.out(
-        `\n${paint(io, "red", "✗")} ${paint(io, "gray", where)} ${paint(io, "red", "failed")}\n`,
-      );
-    } else if (state.status === "blocked") {
-      const by = (state.blockedBy ?? []).map((id) => `cell ${numberOf.get(id)}`).join(", ");
-      io.out(`\n${paint(io, "yellow", "⊘")} ${paint(io, "gray", where)} blocked: needs ${by}\n`);
-    } else {
-      io.out(`\n${paint(io, "gray", `· ${where} ${state.status}`)}\n`);
-    }
-    for (const chunk of state.streams) {
-      for (const line of chunk.text.replace(/\n$/, "").split("\n")) {
-        io.out(
-          `  ${paint(io, "gray", "│")} ${
-            chunk.name === "err" ? paint(io, "yellow", line) : line
-          }\n`,
-        );
-      }
-    }
-    for (const adjustable of state.outcome?.adjustables ?? []) {
-      const range = Number.isFinite(adjustable.min) || Number.isFinite(adjustable.max)
-        ? `, ${formatQuantity(adjustable.min, adjustable.unit)} … ${
-          formatQuantity(adjustable.max, adjustable.unit)
-        }`
-        : "";
-      const changed = adjustable.value !== adjustable.defaultValue
-        ? paint(io, "yellow", " (set)")
-        : "";
-      io.out(
-        `  adjustable ${adjustable.name} = ${
-          formatQuantity(adjustable.value, adjustable.unit)
-        }${changed}` +
-          paint(
-            io,
-            "gray",
-            ` (default ${formatQuantity(adjustable.defaultValue, adjustable.unit)}${range})`,
-          ) + "\n",
-      );
-    }
-    for (const output of state.outcome?.outputs ?? []) {
-      const text = output["text/plain"] ?? "";
-      for (const line of text.split("\n")) io.out(`  ${line}\n`);
-      if (output["image/svg+xml"]) {
-        io.out(paint(io, "gray", "  (chart: saved by `longtail record`)\n"));
-      }
-    }
-    if (state.error) {
-      const place = state.error.line === undefined
-        ? ""
-        : ` (line ${state.error.line}${
-          state.error.column === undefined ? "" : `, column ${state.error.column}`
-        })`;
-      const problems = state.error.problems ?? [];
-      if (problems.length > 0) {
-        for (const problem of problems) {
-          io.out(
-            `  ${paint(io, "red", problem.message)} ${
-              paint(io, "gray", `(line ${problem.line}, column ${problem.column})`)
-            }\n`,
-          );
-        }
-      } else io.out(`  ${paint(io, "red", state.error.message)}${paint(io, "gray", place)}\n`);
-    }
+    printCell(io, { index: cell.index, line: cell.place.startLine + 1 }, run.states[i], numberOf);
   }
   for (const heading of headings) {
     io.out(`\n${paint(io, "bold", `${"#".repeat(heading.level)} ${heading.text}`)}\n`);
@@ -107,6 +41,88 @@ export function printRun(io: CliIo, run: NotebookRun, relativePath: string): voi
     for (const line of checkTable(io, checks)) io.out(`  ${line}\n`);
   }
   io.out(`\n${runSummary(io, run)}\n`);
+}
+
+/**
+ * Prints one cell's outcome: its status line, printed text, adjustable values, shown values
+ * and error.
+ *
+ * @param io Where to print.
+ * @param cell The cell's number (0-based index) and the notebook line of its fence.
+ * @param state Its latest state.
+ * @param numberOf Cell ids to cell numbers, for "blocked: needs cell N".
+ */
+export function printCell(
+  io: CliIo,
+  cell: { index: number; line: number },
+  state: CellState,
+  numberOf: ReadonlyMap<string, number>,
+): void {
+  const where = `cell ${cell.index + 1} · line ${cell.line}`;
+  if (state.status === "done") {
+    const ms = state.outcome ? ` · ${formatMs(state.outcome.durationMs)}` : "";
+    io.out(`\n${paint(io, "green", "✓")} ${paint(io, "gray", where + ms)}\n`);
+  } else if (state.status === "failed") {
+    io.out(
+      `\n${paint(io, "red", "✗")} ${paint(io, "gray", where)} ${paint(io, "red", "failed")}\n`,
+    );
+  } else if (state.status === "blocked") {
+    const by = (state.blockedBy ?? []).map((id) => `cell ${numberOf.get(id)}`).join(", ");
+    io.out(`\n${paint(io, "yellow", "⊘")} ${paint(io, "gray", where)} blocked: needs ${by}\n`);
+  } else {
+    io.out(`\n${paint(io, "gray", `· ${where} ${state.status}`)}\n`);
+  }
+  for (const chunk of state.streams) {
+    for (const line of chunk.text.replace(/\n$/, "").split("\n")) {
+      io.out(
+        `  ${paint(io, "gray", "│")} ${chunk.name === "err" ? paint(io, "yellow", line) : line}\n`,
+      );
+    }
+  }
+  for (const adjustable of state.outcome?.adjustables ?? []) {
+    const range = Number.isFinite(adjustable.min) || Number.isFinite(adjustable.max)
+      ? `, ${formatQuantity(adjustable.min, adjustable.unit)} … ${
+        formatQuantity(adjustable.max, adjustable.unit)
+      }`
+      : "";
+    const changed = adjustable.value !== adjustable.defaultValue
+      ? paint(io, "yellow", " (set)")
+      : "";
+    io.out(
+      `  adjustable ${adjustable.name} = ${
+        formatQuantity(adjustable.value, adjustable.unit)
+      }${changed}` +
+        paint(
+          io,
+          "gray",
+          ` (default ${formatQuantity(adjustable.defaultValue, adjustable.unit)}${range})`,
+        ) + "\n",
+    );
+  }
+  for (const output of state.outcome?.outputs ?? []) {
+    const text = output["text/plain"] ?? "";
+    for (const line of text.split("\n")) io.out(`  ${line}\n`);
+    if (output["image/svg+xml"]) {
+      io.out(paint(io, "gray", "  (chart: saved by `longtail record`)\n"));
+    }
+  }
+  if (state.error) {
+    const place = state.error.line === undefined
+      ? ""
+      : ` (line ${state.error.line}${
+        state.error.column === undefined ? "" : `, column ${state.error.column}`
+      })`;
+    const problems = state.error.problems ?? [];
+    if (problems.length > 0) {
+      for (const problem of problems) {
+        io.out(
+          `  ${paint(io, "red", problem.message)} ${
+            paint(io, "gray", `(line ${problem.line}, column ${problem.column})`)
+          }\n`,
+        );
+      }
+    } else io.out(`  ${paint(io, "red", state.error.message)}${paint(io, "gray", place)}\n`);
+  }
 }
 
 /** Failed and passed counts, in one line. */

@@ -1,5 +1,5 @@
 /**
- * `longtail`: the command line. Subcommands `run`, `record`, `verify`, `render` and `demo`; each
+ * `longtail`: the command line. Subcommands `run`, `record`, `verify`, `render`, `watch` and `demo`; each
  * has `--help`. From a checkout: `deno task longtail <subcommand> ...`.
  *
  * @module
@@ -12,6 +12,7 @@ import { renderCommand } from "./render.ts";
 import { runCommand } from "./run_command.ts";
 import { type CliIo, terminalIo } from "./_terminal.ts";
 import { verifyCommand } from "./verify_command.ts";
+import { watchCommand } from "./watch_command.ts";
 
 /** The general help text. */
 export const HELP = `longtail ${LONGTAIL_VERSION} — amplifier design notebooks that check themselves
@@ -23,6 +24,7 @@ Commands:
   record NOTEBOOK    run a notebook and write its results (and charts) into it
   verify PATHS...    rerun notebooks, compare with their recorded results, enforce checks
   render NOTEBOOK    run a notebook and write its design report as one HTML file (-o FILE)
+  watch NOTEBOOK     run a notebook, then rerun what changed each time the file is saved
   demo               verify the flagship power-amplifier notebook and write its report
 
 Run longtail <command> --help for a command's options.
@@ -33,6 +35,7 @@ const COMMANDS: Record<string, (args: string[], io: CliIo) => Promise<number>> =
   record: recordCommand,
   verify: verifyCommand,
   render: renderCommand,
+  watch: watchCommand,
   demo: demoCommand,
 };
 
@@ -67,7 +70,7 @@ export async function main(args: string[], io: CliIo): Promise<number> {
     io.err(
       `longtail: there is no command ${
         JSON.stringify(name)
-      }; the commands are run, record, verify, render, demo\n`,
+      }; the commands are run, record, verify, render, watch, demo\n`,
     );
     return 2;
   }
