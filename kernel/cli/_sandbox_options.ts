@@ -6,7 +6,7 @@
  * @module
  */
 import { absolutePath } from "../_paths.ts";
-import { UsageError } from "./_common.ts";
+import { parseSettings, readNotebookFile, UsageError } from "./_common.ts";
 
 /** `parseArgs` definitions of the sandbox options. */
 export const SANDBOX_ARGS = {
@@ -143,4 +143,49 @@ export function grantsLine(
     ...settings.allowEnv.map((name) => `env ${name}`),
   ];
   return parts.length === 0 ? "" : `granted: ${parts.join(", ")}\n`;
+}
+
+/** `parseArgs` definitions every single-notebook command shares: `--set`, sandbox, `--help`. */
+export const NOTEBOOK_ARGS = {
+  set: { type: "string", multiple: true },
+  ...SANDBOX_ARGS,
+  help: { type: "boolean", short: "h" },
+} as const;
+
+/** A notebook a command was asked to run, read and ready. */
+export interface OpenedNotebook {
+  /** Absolute path. */
+  path: string;
+  /** The file's bytes, as read. */
+  bytes: Uint8Array;
+  /** The file's text. */
+  text: string;
+  /** `--set` values, by adjustable name. */
+  values: Record<string, number>;
+  /** Sandbox limits and grants. */
+  sandbox: SandboxSettings;
+}
+
+/**
+ * Reads the one notebook a command names, with its `--set` values and sandbox settings.
+ *
+ * @param positionals The command's positional arguments.
+ * @param values The `values` of `parseArgs` (with {@linkcode NOTEBOOK_ARGS} among its options).
+ * @param example A usage example for the error, e.g. `"longtail run design.md"`.
+ * @returns The notebook and its settings.
+ * @throws {UsageError} If there is not exactly one notebook, or an option is malformed.
+ * @throws {UnreadableError} If the file cannot be read as a notebook.
+ */
+export async function openNotebook(
+  positionals: readonly string[],
+  values: Record<string, unknown>,
+  example: string,
+): Promise<OpenedNotebook> {
+  if (positionals.length !== 1) {
+    throw new UsageError(`Expected one notebook file, e.g. ${example}`);
+  }
+  const path = absolutePath(positionals[0]);
+  const { bytes, text } = await readNotebookFile(path);
+  const settings = parseSettings((values.set as string[] | undefined) ?? [], text, path);
+  return { path, bytes, text, values: settings, sandbox: sandboxSettings(values) };
 }

@@ -7,10 +7,9 @@
 import { parseArgs } from "node:util";
 import { NotebookChangedError, recordNotebook } from "../record/record_notebook.ts";
 import { runNotebook } from "../session/run_notebook.ts";
-import { absolutePath } from "../_paths.ts";
 import { LONGTAIL_VERSION } from "../version.ts";
-import { parseSettings, readNotebookFile, relativeToCwd, UsageError } from "./_common.ts";
-import { grantsLine, SANDBOX_ARGS, SANDBOX_HELP, sandboxSettings } from "./_sandbox_options.ts";
+import { relativeToCwd } from "./_common.ts";
+import { grantsLine, NOTEBOOK_ARGS, openNotebook, SANDBOX_HELP } from "./_sandbox_options.ts";
 import { printRun } from "./_report.ts";
 import { type CliIo, paint } from "./_terminal.ts";
 
@@ -56,23 +55,19 @@ export async function recordCommand(args: string[], io: CliIo): Promise<number> 
     allowPositionals: true,
     options: {
       force: { type: "boolean" },
-      set: { type: "string", multiple: true },
-      ...SANDBOX_ARGS,
       quiet: { type: "boolean", short: "q" },
-      help: { type: "boolean", short: "h" },
+      ...NOTEBOOK_ARGS,
     },
   });
   if (values.help) {
     io.out(RECORD_HELP);
     return 0;
   }
-  if (positionals.length !== 1) {
-    throw new UsageError("Expected one notebook file, e.g. longtail record design.md");
-  }
-  const path = absolutePath(positionals[0]);
-  const { bytes, text } = await readNotebookFile(path);
-  const settings = parseSettings(values.set ?? [], text, path);
-  const sandbox = sandboxSettings(values);
+  const { path, bytes, text, values: settings, sandbox } = await openNotebook(
+    positionals,
+    values,
+    "longtail record design.md",
+  );
   const run = await runNotebook(path, text, {
     values: settings,
     ...sandbox,

@@ -9,8 +9,8 @@ import { renderReport } from "../report/render_report.ts";
 import { runNotebookForReport } from "../report/report_run.ts";
 import { writeFileAtomic } from "../record/write_files.ts";
 import { absolutePath, basename, dirname } from "../_paths.ts";
-import { parseSettings, readNotebookFile, relativeToCwd, UsageError } from "./_common.ts";
-import { grantsLine, SANDBOX_ARGS, SANDBOX_HELP, sandboxSettings } from "./_sandbox_options.ts";
+import { relativeToCwd, UsageError } from "./_common.ts";
+import { grantsLine, NOTEBOOK_ARGS, openNotebook, SANDBOX_HELP } from "./_sandbox_options.ts";
 import type { CliIo } from "./_terminal.ts";
 
 /** Help text of `render`. */
@@ -46,30 +46,24 @@ export async function renderCommand(args: string[], io: CliIo): Promise<number> 
     allowPositionals: true,
     options: {
       output: { type: "string", short: "o" },
-      set: { type: "string", multiple: true },
-      ...SANDBOX_ARGS,
-      help: { type: "boolean", short: "h" },
+      ...NOTEBOOK_ARGS,
     },
   });
   if (values.help) {
     io.out(RENDER_HELP);
     return 0;
   }
-  if (positionals.length !== 1) {
-    throw new UsageError(
-      "Expected one notebook file, e.g. longtail render design.md -o design.html",
-    );
-  }
-  const path = absolutePath(positionals[0]);
+  const { path, text, values: settings, sandbox } = await openNotebook(
+    positionals,
+    values,
+    "longtail render design.md -o design.html",
+  );
   const output = absolutePath(
     values.output ?? basename(path).replace(/\.(md|markdown)$/i, "") + ".html",
   );
   if (output === path) {
     throw new UsageError("The report would overwrite the notebook; choose another -o FILE");
   }
-  const { text } = await readNotebookFile(path);
-  const settings = parseSettings(values.set ?? [], text, path);
-  const sandbox = sandboxSettings(values);
   io.out(grantsLine(sandbox));
   const { source, run } = await runNotebookForReport(path, text, { values: settings, ...sandbox });
   const html = renderReport({ ...source, path: relativeToCwd(path) }, run);

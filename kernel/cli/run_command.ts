@@ -6,9 +6,8 @@
  */
 import { parseArgs } from "node:util";
 import { runNotebook } from "../session/run_notebook.ts";
-import { absolutePath } from "../_paths.ts";
-import { parseSettings, readNotebookFile, relativeToCwd, UsageError } from "./_common.ts";
-import { grantsLine, SANDBOX_ARGS, SANDBOX_HELP, sandboxSettings } from "./_sandbox_options.ts";
+import { relativeToCwd } from "./_common.ts";
+import { grantsLine, NOTEBOOK_ARGS, openNotebook, SANDBOX_HELP } from "./_sandbox_options.ts";
 import { printRun } from "./_report.ts";
 import type { CliIo } from "./_terminal.ts";
 
@@ -50,23 +49,17 @@ export async function runCommand(args: string[], io: CliIo): Promise<number> {
   const { values, positionals } = parseArgs({
     args,
     allowPositionals: true,
-    options: {
-      set: { type: "string", multiple: true },
-      ...SANDBOX_ARGS,
-      help: { type: "boolean", short: "h" },
-    },
+    options: NOTEBOOK_ARGS,
   });
   if (values.help) {
     io.out(RUN_HELP);
     return 0;
   }
-  if (positionals.length !== 1) {
-    throw new UsageError("Expected one notebook file, e.g. longtail run design.md");
-  }
-  const path = absolutePath(positionals[0]);
-  const { text } = await readNotebookFile(path);
-  const settings = parseSettings(values.set ?? [], text, path);
-  const sandbox = sandboxSettings(values);
+  const { path, text, values: settings, sandbox } = await openNotebook(
+    positionals,
+    values,
+    "longtail run design.md",
+  );
   const run = await runNotebook(path, text, { values: settings, ...sandbox });
   io.out(grantsLine(sandbox));
   printRun(io, run, relativeToCwd(path));

@@ -8,10 +8,15 @@
 import { parseArgs } from "node:util";
 import { Session } from "../session/session.ts";
 import type { CellSummary, SessionEvent } from "../session/events.ts";
-import { absolutePath } from "../_paths.ts";
-import { parseSettings, readNotebookFile, relativeToCwd, UsageError } from "./_common.ts";
+import { readNotebookFile, relativeToCwd } from "./_common.ts";
 import { printCell } from "./_report.ts";
-import { grantsLine, SANDBOX_ARGS, SANDBOX_HELP, sandboxSettings } from "./_sandbox_options.ts";
+import {
+  grantsLine,
+  NOTEBOOK_ARGS,
+  openNotebook,
+  SANDBOX_HELP,
+  type SandboxSettings,
+} from "./_sandbox_options.ts";
 import { type CliIo, paint } from "./_terminal.ts";
 
 /** Help text of `watch`. */
@@ -38,7 +43,7 @@ export interface WatchOptions {
    */
   values?: Record<string, number>;
   /** Sandbox limits and grants (as `run` takes them). */
-  sandbox?: ReturnType<typeof sandboxSettings>;
+  sandbox?: SandboxSettings;
   /**
    * Milliseconds to wait after a change before rerunning, so one save is one rerun.
    * @default {150}
@@ -151,22 +156,17 @@ export async function watchCommand(args: string[], io: CliIo): Promise<number> {
   const { values, positionals } = parseArgs({
     args,
     allowPositionals: true,
-    options: {
-      set: { type: "string", multiple: true },
-      ...SANDBOX_ARGS,
-      help: { type: "boolean", short: "h" },
-    },
+    options: NOTEBOOK_ARGS,
   });
   if (values.help) {
     io.out(WATCH_HELP);
     return 0;
   }
-  if (positionals.length !== 1) {
-    throw new UsageError("Expected one notebook file, e.g. longtail watch design.md");
-  }
-  const path = absolutePath(positionals[0]);
-  const { text } = await readNotebookFile(path);
-  const sandbox = sandboxSettings(values);
+  const { path, values: settings, sandbox } = await openNotebook(
+    positionals,
+    values,
+    "longtail watch design.md",
+  );
   io.out(grantsLine(sandbox));
   const controller = new AbortController();
   const interrupt = () => controller.abort();
@@ -174,7 +174,7 @@ export async function watchCommand(args: string[], io: CliIo): Promise<number> {
   try {
     await watchNotebook(path, io, {
       signal: controller.signal,
-      values: parseSettings(values.set ?? [], text, path),
+      values: settings,
       sandbox,
     });
   } finally {
