@@ -18,6 +18,21 @@ async function copyFixture(): Promise<{ dir: string; path: string }> {
   return { dir, path: `${dir}/stage.md` };
 }
 
+/** Records a copy of the fixture, edits it with `edit`, and hands its path to `use`. */
+async function withEditedRecording<T>(
+  edit: (text: string) => string,
+  use: (path: string) => Promise<T>,
+): Promise<T> {
+  const { dir, path } = await copyFixture();
+  try {
+    await record(path);
+    await Deno.writeTextFile(path, edit(await Deno.readTextFile(path)));
+    return await use(path);
+  } finally {
+    await Deno.remove(dir, { recursive: true });
+  }
+}
+
 async function runFile(path: string) {
   return await runNotebook(path, await Deno.readTextFile(path));
 }
@@ -61,59 +76,40 @@ Deno.test("record writes result blocks, chart files and the version line, and th
 });
 
 Deno.test("verify reports a changed part value as drift, with the recorded and the new value", async () => {
-  const { dir, path } = await copyFixture();
-  try {
-    await record(path);
-    const text = await Deno.readTextFile(path);
-    await Deno.writeTextFile(path, text.replace("adjustable(4700,", "adjustable(5100,"));
-    const verdict = verifyRun(await runFile(path));
-    assertEquals(verdict.passed, false);
-    const gainCell = verdict.drifts.find((d) => d.cell === 2)!;
-    const gain = gainCell.drifts.find((d) => d.name === "gain")!;
-    assertEquals(gain.recorded, "181.804"); // closed form: 2 mA / 2 / 25.852 mV · 4.7 kΩ, six digits
-    assertEquals(gain.now, "197.277"); // closed form: same with 5.1 kΩ
-    assertEquals(verdict.drifts.find((d) => d.cell === 1)!.drifts, [
-      { name: "collectorResistor", recorded: "4700", now: "5100" },
-    ]);
-    // Within a loose tolerance, the same change is no drift.
-    assertEquals(verifyRun(await runFile(path), { rtol: 0.2 }).drifts, []);
-  } finally {
-    await Deno.remove(dir, { recursive: true });
-  }
+  await withEditedRecording(
+    (text) => text.replace("adjustable(4700,", "adjustable(5100,"),
+    async (path) => {
+      const verdict = verifyRun(await runFile(path));
+      assertEquals(verdict.passed, false);
+      const gainCell = verdict.drifts.find((d) => d.cell === 2)!;
+      const gain = gainCell.drifts.find((d) => d.name === "gain")!;
+      assertEquals(gain.recorded, "181.804"); // closed form: 2 mA / 2 / 25.852 mV · 4.7 kΩ, six digits
+      assertEquals(gain.now, "197.277"); // closed form: same with 5.1 kΩ
+      assertEquals(verdict.drifts.find((d) => d.cell === 1)!.drifts, [
+        { name: "collectorResistor", recorded: "4700", now: "5100" },
+      ]);
+      // Within a loose tolerance, the same change is no drift.
+      assertEquals(verifyRun(await runFile(path), { rtol: 0.2 }).drifts, []);
+    },
+  );
 });
 
 Deno.test("verify says which longtail version recorded the results when it differs", async () => {
-  const { dir, path } = await copyFixture();
-  try {
-    await record(path);
-    const text = await Deno.readTextFile(path);
-    await Deno.writeTextFile(
-      path,
-      text.replace(`longtail ${LONGTAIL_VERSION} -->`, "longtail 0.0.1 -->"),
-    );
-    const verdict = verifyRun(await runFile(path));
-    assertEquals(verdict.recordedWith, "0.0.1");
-    assert.ok(verdict.passed, "a version note alone is not a failure");
-  } finally {
-    await Deno.remove(dir, { recursive: true });
-  }
+  const verdict = await withEditedRecording(
+    (text) => text.replace(`longtail ${LONGTAIL_VERSION} -->`, "longtail 0.0.1 -->"),
+    async (path) => verifyRun(await runFile(path)),
+  );
+  assertEquals(verdict.recordedWith, "0.0.1");
+  assert.ok(verdict.passed, "a version note alone is not a failure");
 });
 
 Deno.test("verify fails a deliberately broken copy: a design check that no longer holds", async () => {
-  const { dir, path } = await copyFixture();
-  try {
-    await record(path);
-    const text = await Deno.readTextFile(path);
-    await Deno.writeTextFile(
-      path,
-      text.replace('checkAtLeast("gain", gain, 100)', 'checkAtLeast("gain", gain, 1000)'),
-    );
-    const verdict = verifyRun(await runFile(path));
-    assertEquals(verdict.passed, false);
-    assertEquals(verdict.checks.filter((c) => !c.pass).map((c) => c.name), ["gain"]);
-  } finally {
-    await Deno.remove(dir, { recursive: true });
-  }
+  const verdict = await withEditedRecording(
+    (text) => text.replace('checkAtLeast("gain", gain, 100)', 'checkAtLeast("gain", gain, 1000)'),
+    async (path) => verifyRun(await runFile(path)),
+  );
+  assertEquals(verdict.passed, false);
+  assertEquals(verdict.checks.filter((c) => !c.pass).map((c) => c.name), ["gain"]);
 });
 
 Deno.test("record refuses to write when the notebook changed on disk while it ran", async () => {
