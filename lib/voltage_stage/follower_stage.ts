@@ -209,7 +209,7 @@ export function emitterFollowerStage(options: EmitterFollowerStageOptions): Foll
   requirePositive("temperature", temperature, "K");
   const vt = thermalVoltage(temperature);
   const gm = ic / vt;
-  const re = beta === Infinity ? 1 / gm : beta / (beta + 1) / gm;
+  const re = beta / (beta + 1) / gm; // α/gm; requirePositive has already refused an infinite β
   const ro = va / ic;
   return {
     operatingPoint: { current: ic, inputCurrent: ic / beta, thermalVoltage: vt },
